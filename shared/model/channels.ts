@@ -1,0 +1,22 @@
+// The channel names of the IPC contract, and nothing else. Dependency-free on purpose: the
+// sandboxed preload imports this file and may not import zod or anything with dependencies.
+// shared/model/contract.ts maps every name here to its request and response schema; a unit test
+// checks that the two lists are the same.
+export const CHANNELS = ['appInfo', 'loadDemo'] as const;
+
+export type Channel = (typeof CHANNELS)[number];
+
+/** The result every channel answers with: thrown errors lose their code on the way back. */
+export type Envelope<T> =
+  | { readonly ok: true; readonly value: T }
+  | { readonly ok: false; readonly error: { readonly code: string; readonly message: string } };
+
+/** The bridge the preload (or the browser stand-in) exposes: one named method per channel. */
+export type RawBridge = { readonly [C in Channel]: (request: unknown) => Promise<unknown> };
+
+/** Builds the bridge object from a transport; used by the preload and the browser stand-in. */
+export function buildBridge(send: (channel: Channel, request: unknown) => Promise<unknown>): RawBridge {
+  const bridge: Partial<Record<Channel, (request: unknown) => Promise<unknown>>> = {};
+  for (const channel of CHANNELS) bridge[channel] = (request: unknown) => send(channel, request);
+  return Object.freeze(bridge) as RawBridge;
+}

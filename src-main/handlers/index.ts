@@ -1,0 +1,15 @@
+// The handler table: one function per channel of the contract, checked by the type below.
+import type { Channel } from '@shared/model/channels';
+import type { ParsedRequestOf, ResponseOf } from '@shared/model/contract';
+import type { HandlerContext } from './context';
+import { appInfo } from './app-info';
+import { loadDemo } from './load-demo';
+
+export type Handlers = {
+  readonly [C in Channel]: (request: ParsedRequestOf<C>, ctx: HandlerContext) => Promise<ResponseOf<C>>;
+};
+
+export const handlers: Handlers = {
+  appInfo,
+  loadDemo,
+};

@@ -1,0 +1,70 @@
+import { readFile } from 'node:fs/promises';
+import path from 'node:path';
+import { expect, REPO_ROOT, test } from './harness/fixtures';
+import { CHANNELS } from '../../shared/model/channels';
+
+test('the built renderer loads the demo plan from disk through the bridge and shows it', async ({ appPage: page, host }) => {
+  const demo = JSON.parse(await readFile(path.join(REPO_ROOT, 'demo', 'consortium-continuous.plumb'), 'utf8')) as {
+    name: string;
+    populations: { name: string }[];
+  };
+  await expect(page.getByRole('heading', { level: 1, name: 'Plumbline' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: demo.name })).toBeVisible();
+  for (const population of demo.populations) await expect(page.getByText(population.name).first()).toBeVisible();
+  expect(host.calls).toEqual(expect.arrayContaining(['appInfo', 'loadDemo']));
+  await expect(page.getByRole('note')).toContainText('Statistical precision only');
+});
+
+test('the renderer cannot reach Node, and sees exactly the contract on window.api', async ({ appPage: page }) => {
+  await expect(page.getByRole('heading', { level: 1, name: 'Plumbline' })).toBeVisible();
+  const probe = await page.evaluate(() => ({
+    require: typeof (globalThis as Record<string, unknown>)['require'],
+    process: typeof (globalThis as Record<string, unknown>)['process'],
+    module: typeof (globalThis as Record<string, unknown>)['module'],
+    apiKeys: Object.keys((window as unknown as { api: object }).api).sort(),
+    frozen: Object.isFrozen((window as unknown as { api: object }).api),
+  }));
+  expect(probe).toEqual({ require: 'undefined', process: 'undefined', module: 'undefined', apiKeys: [...CHANNELS].sort(), frozen: true });
+});
+
+test('the CSP blocks a remote origin and eval in the page', async ({ appPage: page }) => {
+  await expect(page.getByRole('heading', { level: 1, name: 'Plumbline' })).toBeVisible();
+  const outcome = await page.evaluate(async () => {
+    const violations: string[] = [];
+    document.addEventListener('securitypolicyviolation', (e) => violations.push(e.violatedDirective));
+    let fetched = 'allowed';
+    try {
+      await fetch('http://198.51.100.7/ping');
+    } catch {
+      fetched = 'blocked';
+    }
+    let evaluated = 'allowed';
+    try {
+      // eslint-disable-next-line @typescript-eslint/no-implied-eval
+      new Function('return 1')();
+    } catch {
+      evaluated = 'blocked';
+    }
+    await new Promise((r) => setTimeout(r, 50));
+    return { fetched, evaluated, violations };
+  });
+  expect(outcome.fetched).toBe('blocked');
+  expect(outcome.evaluated).toBe('blocked');
+  expect(outcome.violations).toEqual(expect.arrayContaining(['connect-src', 'script-src']));
+});
+
+test('the loopback host refuses requests without the token, with a foreign Host header, or breaking a schema', async ({ host, request }) => {
+  const noToken = await request.get(`${host.origin}/index.html`);
+  expect(noToken.status()).toBe(403);
+  const wrongHost = await request.get(`${host.origin}/`, { headers: { host: 'evil.example:80' } });
+  expect(wrongHost.status()).toBe(421);
+  const ipcWithoutToken = await request.post(`${host.origin}/__ipc/appInfo`, { data: {} });
+  expect(ipcWithoutToken.status()).toBe(403);
+  const cookie = `plumbline-token=${host.token}`;
+  const headers = { cookie, 'x-plumbline-token': host.token, 'content-type': 'application/json' };
+  const broken = await request.post(`${host.origin}/__ipc/loadDemo`, { headers, data: { which: 'nonsense' } });
+  expect(broken.status()).toBe(200);
+  expect(await broken.json()).toMatchObject({ ok: false, error: { code: 'invalid-request' } });
+  const unknown = await request.post(`${host.origin}/__ipc/readAnyFile`, { headers, data: { path: '/etc/passwd' } });
+  expect(await unknown.json()).toMatchObject({ ok: false, error: { code: 'unknown-channel' } });
+});
