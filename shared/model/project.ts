@@ -106,6 +106,17 @@ export const continuousPopulationSchema = z.object({
   sources: z.record(z.string(), z.string().max(5_000)).default({}),
   precision: continuousPrecisionSchema,
   recruitment: recruitmentSchema.prefault({}),
+}).superRefine((population, ctx) => {
+  // Each end of a range must itself be an admissible anticipated value.
+  for (const [key, range] of Object.entries(population.ranges)) {
+    const field = continuousAnticipatedSchema.shape[key as ContinuousAnticipatedKey];
+    for (const end of ['low', 'high'] as const) {
+      const checked = field.safeParse(range[end]);
+      if (!checked.success) {
+        ctx.addIssue({ code: 'custom', path: ['ranges', key, end], input: range[end], message: `${end} end of the range: ${checked.error.issues[0]?.message ?? 'not allowed'}` });
+      }
+    }
+  }
 });
 export type ContinuousPopulation = z.infer<typeof continuousPopulationSchema>;
 

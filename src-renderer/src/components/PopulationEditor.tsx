@@ -1,0 +1,188 @@
+import { CONTINUOUS_FIELDS, type FieldGroup, type FieldSpec } from '@shared/model/population-fields';
+import type { ContinuousPopulation } from '@shared/model/project';
+import { applyFieldEdit, parseNumberText } from '../state/field-edit';
+import { getAt } from '../state/paths';
+import { NumberField } from './NumberField';
+import { VarianceHelper } from './VarianceHelper';
+import { WidthHelper } from './WidthHelper';
+
+export interface PopulationEditorProps {
+  readonly population: ContinuousPopulation;
+  /** Records an accepted edit (undoable) under a label such as "R² of Harbour General". */
+  readonly onChange: (label: string, next: ContinuousPopulation) => void;
+  /** Reports a field that holds a rejected entry (message) or no longer does (null). */
+  readonly onInvalid: (path: string, message: string | null) => void;
+  readonly onDuplicate: () => void;
+  readonly onRemove: () => void;
+  readonly onExport?: () => void;
+}
+
+const GROUP_TITLES: Readonly<Record<FieldGroup, string>> = {
+  anticipated: 'Anticipated values (with optional low–high range)',
+  precision: 'Precision targets',
+  recruitment: 'Recruitment',
+};
+
+export function PopulationEditor({ population, onChange, onInvalid, onDuplicate, onRemove, onExport }: PopulationEditorProps) {
+  const commitNumber = (path: string, label: string, text: string): string | null => {
+    const parsed = parseNumberText(text);
+    if (!parsed.ok) {
+      onInvalid(path, parsed.message);
+      return parsed.message;
+    }
+    const edit = applyFieldEdit(population, path, parsed.value, label);
+    if (!edit.ok) {
+      onInvalid(path, edit.message);
+      return edit.message;
+    }
+    onInvalid(path, null);
+    onChange(`${label} of ${population.name}`, edit.population);
+    return null;
+  };
+
+  const setDirect = (path: string, label: string, value: unknown): void => {
+    const edit = applyFieldEdit(population, path, value, label);
+    if (edit.ok) {
+      onInvalid(path, null);
+      onChange(`${label} of ${population.name}`, edit.population);
+    }
+  };
+
+  const field = (spec: FieldSpec) => (
+    <NumberField
+      key={spec.path}
+      label={spec.label}
+      unit={spec.unit}
+      allowed={spec.allowed}
+      {...(spec.defaultText === undefined ? {} : { defaultText: spec.defaultText })}
+      required={spec.required}
+      help={spec.help}
+      value={getAt(population, spec.path) as number | undefined}
+      testId={`field-${spec.path}`}
+      onCommit={(text) => commitNumber(spec.path, spec.label, text)}
+    />
+  );
+
+  const rangeFields = (spec: FieldSpec) => {
+    if (spec.rangeKey === undefined) return null;
+    const key = spec.rangeKey;
+    const range = population.ranges[key];
+    const commitEnd = (end: 'low' | 'high', text: string): string | null => {
+      const parsed = parseNumberText(text);
+      if (!parsed.ok) return parsed.message;
+      const other = end === 'low' ? range?.high : range?.low;
+      if (parsed.value === undefined) {
+        if (other === undefined || range === undefined) {
+          const rest = { ...population.ranges };
+          delete rest[key];
+          onChange(`range of ${spec.label} of ${population.name}`, { ...population, ranges: rest });
+          return null;
+        }
+        return 'give both ends of the range, or clear both';
+      }
+      const base = getAt(population, spec.path) as number | undefined;
+      const next = { low: end === 'low' ? parsed.value : (other ?? base ?? parsed.value), high: end === 'high' ? parsed.value : (other ?? base ?? parsed.value) };
+      return commitNumberRange(`ranges.${key}`, spec.label, next);
+    };
+    return (
+      <div className="range-row" key={`${spec.path}-range`}>
+        <NumberField label={`${spec.label}: low`} value={range?.low} onCommit={(text) => commitEnd('low', text)} testId={`range-${key}-low`} />
+        <NumberField label={`${spec.label}: high`} value={range?.high} onCommit={(text) => commitEnd('high', text)} testId={`range-${key}-high`} />
+        <label className="source">
+          Source of this assumption
+          <input
+            type="text"
+            defaultValue={population.sources[key] ?? ''}
+            key={`${population.id}-${key}-source`}
+            onBlur={(event) => {
+              const text = event.target.value.trim();
+              if (text !== (population.sources[key] ?? '')) {
+                const sources = { ...population.sources };
+                if (text === '') delete sources[key];
+                else sources[key] = text;
+                onChange(`source of ${spec.label} of ${population.name}`, { ...population, sources });
+              }
+            }}
+          />
+        </label>
+      </div>
+    );
+  };
+
+  const commitNumberRange = (path: string, label: string, value: { low: number; high: number }): string | null => {
+    const edit = applyFieldEdit(population, path, value, label);
+    if (!edit.ok) {
+      onInvalid(path, edit.message);
+      return edit.message;
+    }
+    onInvalid(path, null);
+    onChange(`range of ${label} of ${population.name}`, edit.population);
+    return null;
+  };
+
+  const groups: FieldGroup[] = ['anticipated', 'precision', 'recruitment'];
+  return (
+    <section className="editor" aria-labelledby="editor-title">
+      <div className="editor-head">
+        <h2 id="editor-title">Population</h2>
+        <div className="buttons">
+          <button type="button" onClick={onDuplicate}>
+            Duplicate
+          </button>
+          {onExport ? (
+            <button type="button" onClick={onExport}>
+              Export…
+            </button>
+          ) : null}
+          <button type="button" className="danger" onClick={onRemove}>
+            Remove
+          </button>
+        </div>
+      </div>
+      <div className="field">
+        <label htmlFor="population-name">Site or population name</label>
+        <input
+          id="population-name"
+          type="text"
+          key={`${population.id}-name`}
+          defaultValue={population.name}
+          onBlur={(event) => {
+            const name = event.target.value;
+            if (name !== population.name) {
+              const edit = applyFieldEdit(population, 'name', name, 'name');
+              if (edit.ok) onChange(`name of ${population.name}`, edit.population);
+              else event.target.value = population.name;
+            }
+          }}
+        />
+      </div>
+      <div className="field">
+        <label htmlFor="population-notes">Notes</label>
+        <textarea
+          id="population-notes"
+          key={`${population.id}-notes`}
+          rows={2}
+          defaultValue={population.notes}
+          onBlur={(event) => {
+            if (event.target.value !== population.notes) setDirect('notes', 'notes', event.target.value);
+          }}
+        />
+      </div>
+      {groups.map((group) => (
+        <fieldset key={group} className="group">
+          <legend>{GROUP_TITLES[group]}</legend>
+          {CONTINUOUS_FIELDS.filter((spec) => spec.group === group).map((spec) => (
+            <div key={spec.path} className="field-block">
+              {field(spec)}
+              {group === 'anticipated' ? rangeFields(spec) : null}
+            </div>
+          ))}
+          {group === 'anticipated' ? <VarianceHelper onUse={(variance) => setDirect('anticipated.outcomeVariance', 'outcome variance', variance)} /> : null}
+          {group === 'precision' ? (
+            <WidthHelper confidence={population.precision.confidence} onUse={(width) => setDirect('precision.citl.width', 'CITL width', width)} />
+          ) : null}
+        </fieldset>
+      ))}
+    </section>
+  );
+}
