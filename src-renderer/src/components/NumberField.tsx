@@ -3,7 +3,9 @@ import { formatSignificant } from '@shared/format/numbers';
 
 export interface NumberFieldProps {
   readonly label: string;
-  readonly value: number | undefined;
+  readonly value: number | string | undefined;
+  /** 'text' for dates and names: no numeric keyboard, the value shown as is. */
+  readonly kind?: 'number' | 'text';
   readonly unit?: string;
   readonly allowed?: string;
   readonly defaultText?: string;
@@ -14,8 +16,9 @@ export interface NumberFieldProps {
   readonly testId?: string;
 }
 
-function display(value: number | undefined): string {
-  return value === undefined ? '' : formatSignificant(value, 10);
+function display(value: number | string | undefined): string {
+  if (value === undefined) return '';
+  return typeof value === 'string' ? value : formatSignificant(value, 10);
 }
 
 /**
@@ -23,7 +26,7 @@ function display(value: number | undefined): string {
  * and allowed range, and keeps a rejected entry visible with its message until it is fixed
  * (Escape restores the accepted value).
  */
-export function NumberField({ label, value, unit, allowed, defaultText, required, help, onCommit, testId }: NumberFieldProps) {
+export function NumberField({ label, value, kind = 'number', unit, allowed, defaultText, required, help, onCommit, testId }: NumberFieldProps) {
   const id = useId();
   const [text, setText] = useState(display(value));
   const [error, setError] = useState<string | null>(null);
@@ -51,7 +54,7 @@ export function NumberField({ label, value, unit, allowed, defaultText, required
         id={id}
         data-testid={testId}
         type="text"
-        inputMode="decimal"
+        inputMode={kind === 'number' ? 'decimal' : 'text'}
         value={text}
         placeholder={defaultText ?? ''}
         aria-invalid={error !== null}
