@@ -50,9 +50,19 @@ export interface ComparisonTotals {
   readonly unplanned: number;
 }
 
+/** Required n across the range of one anticipated value, the others at their base values. */
+export interface SensitivityCurveLike {
+  readonly key: string;
+  readonly label: string;
+  readonly base: number;
+  readonly baseN: number | null;
+  readonly points: readonly { readonly value: number; readonly n: number | null }[];
+}
+
 export interface Planner {
   plan(population: Population, project: Project): PopulationPlanLike;
   worstCase?(population: Population, project: Project): WorstCaseLike | null;
+  sensitivity?(population: Population, project: Project): readonly SensitivityCurveLike[];
 }
 
 export function comparisonRow(population: Population, project: Project, planner: Planner): ComparisonRow {

@@ -1,4 +1,4 @@
-import { useMemo, useRef, type KeyboardEvent } from 'react';
+import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import {
   createColumnHelper,
   createSortedRowModel,
@@ -48,7 +48,7 @@ export interface ComparisonTableProps {
   readonly invalidIds: ReadonlySet<string>;
 }
 
-export function ComparisonTable({ rows, totals, sorting, onSortingChange, selectedId, onSelect, invalidIds }: ComparisonTableProps) {
+export function ComparisonTable({ rows, totals, sorting, onSortingChange, selectedId, onSelect, onOrder, invalidIds }: ComparisonTableProps) {
   const columnsSpec = useMemo(() => criterionColumns(rows), [rows]);
   const columns = useMemo(
     () =>
@@ -175,6 +175,10 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
   };
 
   const rendered = table.getRowModel().rows;
+  const orderKey = rendered.map((row) => row.id).join('\u0000');
+  useEffect(() => {
+    onOrder?.(orderKey === '' ? [] : orderKey.split('\u0000'));
+  }, [orderKey, onOrder]);
   return (
     <div className="table-wrap" role="region" aria-label="Comparison of populations" tabIndex={-1}>
       <table ref={gridRef} className="comparison" data-testid="comparison-table" onKeyDown={onKeyDown}>

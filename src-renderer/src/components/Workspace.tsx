@@ -1,0 +1,145 @@
+import { useCallback, useMemo, useState } from 'react';
+import type { SortingState } from '@tanstack/react-table';
+import type { ContinuousPopulation, Project } from '@shared/model/project';
+import { comparisonRows, comparisonTotals, type Planner } from '@shared/summary/comparison';
+import { comparisonCells, toTsv } from '@shared/summary/table-cells';
+import { duplicatePopulation } from '@shared/model/population-ops';
+import { CriterionBars } from '../charts/CriterionBars';
+import { RecruitmentTimeline } from '../charts/RecruitmentTimeline';
+import { SensitivityChart } from '../charts/SensitivityChart';
+import { ComparisonTable } from './ComparisonTable';
+import { PopulationEditor } from './PopulationEditor';
+import { PrecisionPanel } from './PrecisionPanel';
+import { ProjectSettings } from './ProjectSettings';
+import { newPopulation } from '../state/new-population';
+
+export interface WorkspaceProps {
+  readonly project: Project;
+  readonly planner: Planner;
+  readonly onEdit: (label: string, change: (project: Project) => Project) => void;
+  readonly onExportPopulation?: (populationId: string) => void;
+  readonly onStatus: (message: string) => void;
+}
+
+const DEFAULT_SORT: SortingState = [{ id: 'required', desc: true }];
+
+/** The screen the plan is worked in: settings, the ranking table, the editor and the charts. */
+export function Workspace({ project, planner, onEdit, onExportPopulation, onStatus }: WorkspaceProps) {
+  const [sorting, setSorting] = useState<SortingState>(DEFAULT_SORT);
+  const [selectedId, setSelectedId] = useState<string | null>(project.populations[0]?.id ?? null);
+  const [invalid, setInvalid] = useState<Record<string, Record<string, string>>>({});
+
+  const rows = useMemo(() => comparisonRows(project, planner), [project, planner]);
+  const [orderIds, setOrderIds] = useState<readonly string[]>([]);
+  const order = useMemo(() => orderBy(rows, orderIds), [rows, orderIds]);
+  const totals = useMemo(() => comparisonTotals(rows), [rows]);
+  const invalidIds = useMemo(() => new Set(Object.entries(invalid).filter(([, fields]) => Object.keys(fields).length > 0).map(([id]) => id)), [invalid]);
+
+  const selected = project.populations.find((p) => p.id === selectedId) ?? project.populations[0] ?? null;
+  const selectedRow = rows.find((r) => r.populationId === selected?.id) ?? null;
+
+  const replacePopulation = useCallback(
+    (label: string, next: ContinuousPopulation) =>
+      onEdit(label, (p) => ({ ...p, populations: p.populations.map((q) => (q.id === next.id ? next : q)) })),
+    [onEdit],
+  );
+
+  const copyTable = (): void => {
+    const text = toTsv(comparisonCells(order, totals));
+    navigator.clipboard.writeText(text).then(
+      () => onStatus('The table was copied as tab-separated text.'),
+      () => onStatus('The clipboard is not available here; nothing was copied.'),
+    );
+  };
+
+  return (
+    <div className="workspace">
+      <ProjectSettings project={project} onChange={(label, next) => onEdit(label, () => next)} />
+      <section aria-labelledby="table-title" className="table-section">
+        <div className="section-head">
+          <h2 id="table-title">Populations ranked by required n</h2>
+          <div className="buttons">
+            <button
+              type="button"
+              onClick={() => {
+                const population = newPopulation(project);
+                onEdit(`add ${population.name}`, (p) => ({ ...p, populations: [...p.populations, population] }));
+                setSelectedId(population.id);
+              }}
+            >
+              Add population
+            </button>
+            <button type="button" onClick={copyTable}>
+              Copy table
+            </button>
+            <button type="button" onClick={() => setSorting(DEFAULT_SORT)} disabled={JSON.stringify(sorting) === JSON.stringify(DEFAULT_SORT)}>
+              Rank by required n
+            </button>
+          </div>
+        </div>
+        {rows.length === 0 ? (
+          <p className="muted">This plan has no populations yet. Add one to start.</p>
+        ) : (
+          <ComparisonTable
+            rows={rows}
+            totals={totals}
+            sorting={sorting}
+            onSortingChange={setSorting}
+            selectedId={selected?.id ?? null}
+            onSelect={setSelectedId}
+            invalidIds={invalidIds}
+            onOrder={setOrderIds}
+          />
+        )}
+      </section>
+      <div className="lower">
+        <div className="charts">
+          {rows.length > 0 ? <CriterionBars rows={order} selectedId={selected?.id ?? null} /> : null}
+          {rows.length > 0 ? <RecruitmentTimeline rows={order} windowMonths={project.study.windowMonths} selectedId={selected?.id ?? null} /> : null}
+          {selected ? <SensitivityChart population={selected} project={project} planner={planner} /> : null}
+        </div>
+        {selected ? (
+          <div className="side">
+            {selectedRow?.availableN && selectedRow.precisionAtAvailableN ? (
+              <PrecisionPanel availableN={selectedRow.availableN} precision={selectedRow.precisionAtAvailableN} />
+            ) : null}
+            <PopulationEditor
+              key={selected.id}
+              population={selected}
+              onChange={replacePopulation}
+              onInvalid={(path, message) =>
+                setInvalid((current) => {
+                  const fields = { ...(current[selected.id] ?? {}) };
+                  if (message === null) delete fields[path];
+                  else fields[path] = message;
+                  return { ...current, [selected.id]: fields };
+                })
+              }
+              onDuplicate={() => {
+                const result = duplicatePopulation(project, selected.id);
+                if (!result.ok) {
+                  onStatus(result.error.message);
+                  return;
+                }
+                onEdit(`duplicate ${selected.name}`, () => result.value.project);
+                setSelectedId(result.value.population.id);
+              }}
+              onRemove={() => {
+                onEdit(`remove ${selected.name}`, (p) => ({ ...p, populations: p.populations.filter((q) => q.id !== selected.id) }));
+                setSelectedId(null);
+                onStatus(`${selected.name} was removed (Undo brings it back).`);
+              }}
+              {...(onExportPopulation ? { onExport: () => onExportPopulation(selected.id) } : {})}
+            />
+          </div>
+        ) : null}
+      </div>
+    </div>
+  );
+}
+
+/** Rows in the order the table shows them (charts follow the table); rows the table has not placed yet go last. */
+function orderBy<T extends { populationId: string }>(rows: readonly T[], ids: readonly string[]): T[] {
+  const position = new Map(ids.map((id, index) => [id, index]));
+  return [...rows].sort((a, b) => (position.get(a.populationId) ?? Infinity) - (position.get(b.populationId) ?? Infinity));
+}
