@@ -6,7 +6,7 @@ import type { Population, Project } from './project';
 import { checkProject, listProblems } from './plan-file';
 import type { Result } from './result';
 
-export type PopulationOpErrorCode = 'not-found' | 'outcome-mismatch' | 'invalid';
+export type PopulationOpErrorCode = 'no-such-population' | 'outcome-mismatch' | 'invalid';
 export type PopulationOpResult<T> = Result<T, PopulationOpErrorCode>;
 
 const ID_MAX = populationSchema.shape.id.maxLength ?? 100;
@@ -57,13 +57,13 @@ function checked(project: Project): PopulationOpResult<Project> {
   return { ok: false, error: { code: 'invalid', message: `The result would not be a valid plan:\n${listProblems(result.problems)}` } };
 }
 
-function notFound(project: Project, populationId: string): { ok: false; error: { code: 'not-found'; message: string } } {
-  return { ok: false, error: { code: 'not-found', message: `The plan "${project.name}" has no population with id "${populationId}".` } };
+function notFound(project: Project, populationId: string): { ok: false; error: { code: 'no-such-population'; message: string } } {
+  return { ok: false, error: { code: 'no-such-population', message: `The plan "${project.name}" has no population with id "${populationId}".` } };
 }
 
 /**
  * Adds a copy of one population right after it, with a new id and the name "… (copy)".
- * Fails with 'not-found' for an unknown id and 'invalid' when the plan is already at its
+ * Fails with 'no-such-population' for an unknown id and 'invalid' when the plan is already at its
  * population limit.
  */
 export function duplicatePopulation(
@@ -96,7 +96,7 @@ export interface ImportedPopulation {
  * Appends populations of `source` to `target`: all of them, or those listed in `populationIds`
  * (in the order listed). Ids that clash with the target's (or with each other's) are re-issued;
  * names are kept. The outcome types must match; fails with 'outcome-mismatch' otherwise, with
- * 'not-found' for an unknown id, and 'invalid' when the result would exceed the population limit.
+ * 'no-such-population' for an unknown id, and 'invalid' when the result would exceed the population limit.
  */
 export function importPopulations(
   target: Project,
@@ -140,7 +140,7 @@ export function importPopulations(
 
 /**
  * A plan holding only one population of `project`, with the same outcome type, model, updating
- * settings and study window, named "<population> (from <plan>)" (cut to the name limit). Fails with 'not-found' for an
+ * settings and study window, named "<population> (from <plan>)" (cut to the name limit). Fails with 'no-such-population' for an
  * unknown id.
  */
 export function exportPopulation(project: Project, populationId: string): PopulationOpResult<Project> {

@@ -57,10 +57,10 @@ describe('duplicatePopulation', () => {
     expect(result.value.population.ranges).not.toBe(result.value.project.populations[0]?.ranges);
   });
 
-  it('fails with "not-found" for an unknown id', async () => {
+  it('fails with "no-such-population" for an unknown id', async () => {
     expect(duplicatePopulation(await fixturePlan(), 'nowhere')).toEqual({
       ok: false,
-      error: { code: 'not-found', message: 'The plan "Northwind wound-healing score: external validation" has no population with id "nowhere".' },
+      error: { code: 'no-such-population', message: 'The plan "Northwind wound-healing score: external validation" has no population with id "nowhere".' },
     });
   });
 });
@@ -87,8 +87,8 @@ describe('importPopulations', () => {
     expect(result.ok && result.value.project.populations.map((p) => p.id)).toEqual(['lakeside-registry', 'harbour-general']);
   });
 
-  it('fails with "not-found" for an id the source does not have', async () => {
-    expect(importPopulations(newEmptyProject(), await fixturePlan(), ['nowhere'])).toMatchObject({ ok: false, error: { code: 'not-found' } });
+  it('fails with "no-such-population" for an id the source does not have', async () => {
+    expect(importPopulations(newEmptyProject(), await fixturePlan(), ['nowhere'])).toMatchObject({ ok: false, error: { code: 'no-such-population' } });
   });
 
   it('fails with "outcome-mismatch" when the outcome types differ', async () => {
@@ -136,8 +136,8 @@ describe('exportPopulation', () => {
     expect(result.ok && result.value.name.length).toBe(200);
   });
 
-  it('fails with "not-found" for an unknown id', async () => {
-    expect(exportPopulation(await fixturePlan(), 'nowhere')).toMatchObject({ ok: false, error: { code: 'not-found' } });
+  it('fails with "no-such-population" for an unknown id', async () => {
+    expect(exportPopulation(await fixturePlan(), 'nowhere')).toMatchObject({ ok: false, error: { code: 'no-such-population' } });
   });
 });
 
