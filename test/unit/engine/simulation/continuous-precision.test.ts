@@ -6,6 +6,7 @@ import { ceilGuarded } from '@shared/engine/numerics/rounding';
 import { createSimulation } from '@shared/engine/simulation/create-simulation';
 import type { MeasureId, MeasureSummary, SimulationResult } from '@shared/engine/simulation/types';
 import { expectClose } from '../../helpers/expect-close';
+import { CONTINUOUS_TARGETS, runToEnd } from './simulation-fixtures';
 
 // Does the simulation reproduce the closed-form precision at the closed-form n?
 // The closed forms are those of [VAL-CONT] (Stat Med 2021;40(1):133–146, doi:10.1002/sim.8766) as
@@ -22,13 +23,6 @@ import { expectClose } from '../../helpers/expect-close';
 const K = 4;
 const REPLICATES = 20_000;
 const Z = zForConfidence(0.95);
-const TARGETS = {
-  confidence: 0.95,
-  rSquared: { width: 0.1 },
-  citl: { width: 1 },
-  slope: { width: 0.2 },
-  residualSd: { marginFactor: 1.1 },
-} as const;
 
 interface Population {
   readonly rSquared: number;
@@ -95,9 +89,7 @@ function expectations(p: Population, n: number): Record<MeasureId, Expectation |
 }
 
 function run(population: Population, n: number, seed: number, replicates = REPLICATES): SimulationResult {
-  const sim = createSimulation({ outcome: 'continuous', population, n, replicates, seed, targets: TARGETS });
-  while (!sim.step(Infinity).done);
-  return sim.result();
+  return runToEnd(createSimulation({ outcome: 'continuous', population, n, replicates, seed, targets: CONTINUOUS_TARGETS }));
 }
 
 function measure(result: SimulationResult, id: MeasureId): MeasureSummary {

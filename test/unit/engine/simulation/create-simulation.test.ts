@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DomainError } from '@shared/engine/errors';
 import { createSimulation } from '@shared/engine/simulation/create-simulation';
-import type { Simulation } from '@shared/engine/simulation/create-simulation';
 import { SIMULATION_ENGINE_VERSION } from '@shared/engine/simulation/engine-version';
 import type { SimulationConfigInput } from '@shared/engine/simulation/simulation-config';
-import type { SimulationResult } from '@shared/engine/simulation/types';
+import { CONTINUOUS_TARGETS, runToEnd } from './simulation-fixtures';
 
 const BASE: SimulationConfigInput = {
   outcome: 'continuous',
@@ -12,19 +11,8 @@ const BASE: SimulationConfigInput = {
   n: 308,
   replicates: 400,
   seed: 42,
-  targets: {
-    confidence: 0.95,
-    rSquared: { width: 0.1 },
-    citl: { width: 1 },
-    slope: { width: 0.2 },
-    residualSd: { marginFactor: 1.1 },
-  },
+  targets: CONTINUOUS_TARGETS,
 };
-
-function runToEnd(sim: Simulation, chunk: number): SimulationResult {
-  for (let guard = 0; guard < 1_000_000 && !sim.step(chunk).done; guard++);
-  return sim.result();
-}
 
 function thrown(action: () => unknown): unknown {
   try {

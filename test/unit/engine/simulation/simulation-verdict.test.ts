@@ -2,26 +2,19 @@ import { describe, expect, it } from 'vitest';
 import { createSimulation } from '@shared/engine/simulation/create-simulation';
 import { simulationVerdict } from '@shared/engine/simulation/simulation-verdict';
 import type { MeasureSummary, SimulationResult } from '@shared/engine/simulation/types';
-
-const TARGETS = {
-  confidence: 0.95,
-  rSquared: { width: 0.1 },
-  citl: { width: 1 },
-  slope: { width: 0.2 },
-  residualSd: { marginFactor: 1.1 },
-};
+import { CONTINUOUS_TARGETS, runToEnd } from './simulation-fixtures';
 
 function simulate(n: number, replicates: number): SimulationResult {
-  const sim = createSimulation({
-    outcome: 'continuous',
-    population: { rSquared: 0.8, outcomeVariance: 100 },
-    n,
-    replicates,
-    seed: 7,
-    targets: TARGETS,
-  });
-  while (!sim.step(Infinity).done);
-  return sim.result();
+  return runToEnd(
+    createSimulation({
+      outcome: 'continuous',
+      population: { rSquared: 0.8, outcomeVariance: 100 },
+      n,
+      replicates,
+      seed: 7,
+      targets: CONTINUOUS_TARGETS,
+    }),
+  );
 }
 
 function withMeasure(result: SimulationResult, id: MeasureSummary['id'], change: Partial<MeasureSummary>): SimulationResult {
@@ -82,7 +75,7 @@ describe('the plain-language verdict', () => {
       n: 308,
       replicates: 1000,
       seed: 3,
-      targets: TARGETS,
+      targets: CONTINUOUS_TARGETS,
     });
     sim.step(1);
     const one = simulationVerdict(sim.result());
