@@ -1,0 +1,20 @@
+import { zForConfidence } from '../numerics/distributions';
+
+const remembered = new Map<number, number>();
+const LIMIT = 64;
+
+/**
+ * Two-sided normal critical value z = Φ⁻¹(1 − (1 − confidence)/2), remembered per level: planning
+ * evaluates the same few levels thousands of times and the quantile is the costliest step of the
+ * closed-form criteria. Domain: 0 < confidence < 1; otherwise a DomainError (from zForConfidence).
+ * Source: METHODS.md 1.6 (the exact quantile, not 1.96). Accuracy: that of Φ⁻¹ (~1e−15).
+ * @example criticalZ(0.95) // 1.959963984540054
+ */
+export function criticalZ(confidence: number): number {
+  const known = remembered.get(confidence);
+  if (known !== undefined) return known;
+  const z = zForConfidence(confidence);
+  if (remembered.size >= LIMIT) remembered.clear();
+  remembered.set(confidence, z);
+  return z;
+}
