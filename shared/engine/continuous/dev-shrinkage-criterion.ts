@@ -1,0 +1,107 @@
+// Development criterion (i): expected global shrinkage at least S* [DEV-CONT].
+import { formatSignificant } from '../../format/numbers';
+import type { CriterionResult, PrecisionAtN } from '../types';
+import { closedFormShrinkageAtN, closedFormShrinkageN } from './closed-form-shrinkage';
+import type { ContinuousDevelopmentInputs } from './continuous-inputs';
+import type { CriterionText } from './criterion-result';
+import { notAssessableCriterion, sizedCriterion } from './criterion-result';
+import { developmentCore } from './development-inputs-check';
+import { expectedShrinkage } from './expected-shrinkage';
+import { atLeastTarget } from './precision-tolerance';
+import { adjustedR2LinkShrinkageSize, closedFormShrinkageSize, shrinkageBranchStart } from './shrinkage-sample-size';
+import { MAX_SAMPLE_SIZE } from './sample-size-limit';
+
+const LINK_TEXT: CriterionText = {
+  id: 'dev-shrinkage',
+  label: 'Expected shrinkage (development)',
+  purpose: 'development',
+  formula:
+    'S(n) = 1 + (P − 2) / (n·ln(1 − R²_app(n))), R²_app(n) = 1 − (1 − R²_adj)(n − P − 1)/(n − 1); n = smallest n from which S(n) ≥ S* (form reconstructed to reproduce the published total)',
+  references: ['DEV-CONT'],
+};
+
+const CLOSED_TEXT: CriterionText = {
+  id: 'dev-shrinkage',
+  label: 'Expected shrinkage (development, closed form)',
+  purpose: 'development',
+  formula: 'n = P / ((S* − 1)·ln(1 − R²_adj/S*)) (the closed form used for binary and time-to-event outcomes)',
+  references: ['DEV-CONT', 'DEV-BIN-SURV'],
+};
+
+function targetText(inputs: ContinuousDevelopmentInputs): string {
+  return `expected shrinkage factor ≥ ${formatSignificant(inputs.targetShrinkage)}`;
+}
+
+/**
+ * Criterion (i) of DEV-CONT in the form chosen by `shrinkageForm`: 'adjusted-r2-link' (918 for the
+ * published example; see adjustedR2LinkShrinkageSize) or 'closed-form' (995; closedFormShrinkageSize).
+ * Not assessable without P and R²_adj, or (closed form) when R²_adj ≥ S*.
+ * @example devShrinkageCriterion({ predictorParameters: 25, adjustedRSquared: 0.2, targetShrinkage: 0.9, shrinkageForm: 'adjusted-r2-link', … }).n // 918
+ */
+export function devShrinkageCriterion(inputs: ContinuousDevelopmentInputs): CriterionResult {
+  const text = inputs.shrinkageForm === 'closed-form' ? CLOSED_TEXT : LINK_TEXT;
+  const core = developmentCore(inputs);
+  if (typeof core === 'string') return notAssessableCriterion(text, targetText(inputs), core);
+  const { predictorParameters: p, adjustedRSquared: r2 } = core;
+  const s = inputs.targetShrinkage;
+  if (inputs.shrinkageForm === 'closed-form') {
+    if (!(r2 < s)) {
+      return notAssessableCriterion(
+        text,
+        targetText(inputs),
+        `the closed form needs the anticipated adjusted R² (${formatSignificant(r2)}) below the target shrinkage (${formatSignificant(s)})`,
+      );
+    }
+    const size = closedFormShrinkageSize(p, r2, s);
+    const note =
+      size.status === 'always-met' ? 'the closed form asks for no more than the smallest admissible n (P + 2)' : undefined;
+    return sizedCriterion(text, targetText(inputs), size, [{ name: 'unrounded n', value: closedFormShrinkageN(p, r2, s) }], note);
+  }
+  const size = adjustedR2LinkShrinkageSize(p, r2, s);
+  const intermediates =
+    size.n === null
+      ? []
+      : [
+          { name: 'expected shrinkage at n', value: expectedShrinkage(size.n, p, r2) },
+          ...(size.n > p + 2 ? [{ name: 'expected shrinkage at n − 1', value: expectedShrinkage(size.n - 1, p, r2) }] : []),
+        ];
+  const note =
+    size.status !== 'always-met'
+      ? undefined
+      : p <= 2
+        ? 'with P ≤ 2 the (P − 2) form gives an expected shrinkage of at least 1 at every n: always met'
+        : 'the expected shrinkage stays at or above the target at every admissible n: always met';
+  return sizedCriterion(text, targetText(inputs), size, intermediates, note);
+}
+
+/**
+ * The shrinkage factor expected at a fixed n, and whether it meets S* (for the adjusted-R² link:
+ * at n and every larger n, as in the forward criterion).
+ * @example devShrinkagePrecisionAtN({ predictorParameters: 25, adjustedRSquared: 0.2, … }, 500).achieved // 0.832448…
+ */
+export function devShrinkagePrecisionAtN(inputs: ContinuousDevelopmentInputs, n: number): PrecisionAtN {
+  const text = inputs.shrinkageForm === 'closed-form' ? CLOSED_TEXT : LINK_TEXT;
+  const base = {
+    id: text.id,
+    label: text.label,
+    n,
+    targetValue: inputs.targetShrinkage,
+    scale: 'expected shrinkage factor',
+    se: null,
+  };
+  const core = developmentCore(inputs);
+  if (typeof core === 'string') return { ...base, achieved: null, meets: null, reason: core };
+  const { predictorParameters: p, adjustedRSquared: r2 } = core;
+  if (n < p + 2)
+    return { ...base, achieved: null, meets: false, reason: `a model with P = ${p} needs at least P + 2 participants` };
+  if (inputs.shrinkageForm === 'closed-form') {
+    const achieved = closedFormShrinkageAtN(n, p, r2);
+    if (achieved === null)
+      return { ...base, achieved: null, meets: null, reason: 'the closed-form shrinkage could not be solved at this n' };
+    return { ...base, achieved, meets: atLeastTarget(achieved, inputs.targetShrinkage) };
+  }
+  const achieved = expectedShrinkage(n, p, r2);
+  if (p <= 2) return { ...base, achieved, meets: true };
+  const worstFromHere = expectedShrinkage(Math.max(n, shrinkageBranchStart(p, r2, MAX_SAMPLE_SIZE - 1)), p, r2);
+  return { ...base, achieved, meets: worstFromHere >= inputs.targetShrinkage };
+}

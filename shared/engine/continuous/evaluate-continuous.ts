@@ -1,0 +1,80 @@
+// Every continuous criterion for one target population, in the order the reports list them.
+import type { CriterionResult, PrecisionAtN } from '../types';
+import { citlCriterion, citlPrecisionAtN } from './citl-criterion';
+import type { ContinuousDevelopmentInputs, ContinuousValidationInputs } from './continuous-inputs';
+import { devInterceptCriterion, devInterceptPrecisionAtN } from './dev-intercept-criterion';
+import { devOptimismCriterion, devOptimismPrecisionAtN } from './dev-optimism-criterion';
+import { devResidualSdCriterion, devResidualSdPrecisionAtN } from './dev-residual-sd-criterion';
+import { devShrinkageCriterion, devShrinkagePrecisionAtN } from './dev-shrinkage-criterion';
+import { r2Criterion, r2PrecisionAtN } from './r2-criterion';
+import { residualSdCriterion, residualSdPrecisionAtN } from './residual-sd-criterion';
+import { slopeCriterion, slopePrecisionAtN } from './slope-criterion';
+
+/**
+ * The five validation criteria of VAL-CONT: r2, citl, slope, residual-sd-citl, residual-sd-slope.
+ * Inputs outside their domain throw a DomainError naming the field (the zod edge normally stops
+ * them first). @example evaluateContinuousValidation(inputs).map((c) => c.n) // [762, 308, 98, 234, 235]
+ */
+export function evaluateContinuousValidation(inputs: ContinuousValidationInputs): CriterionResult[] {
+  const { confidence } = inputs;
+  const residual = { marginFactor: inputs.residualSdMargin, confidence };
+  return [
+    r2Criterion({ rSquared: inputs.rSquared, width: inputs.r2Width, confidence }),
+    citlCriterion({
+      outcomeVariance: inputs.outcomeVariance,
+      rSquaredCitl: inputs.rSquaredCitl,
+      slope: inputs.slope,
+      width: inputs.citlWidth,
+      confidence,
+    }),
+    slopeCriterion({ rSquaredSlope: inputs.rSquaredSlope, slope: inputs.slope, width: inputs.slopeWidth, confidence }),
+    residualSdCriterion('citl', residual),
+    residualSdCriterion('slope', residual),
+  ];
+}
+
+/**
+ * The four development criteria of DEV-CONT: dev-shrinkage, dev-optimism, dev-residual-sd,
+ * dev-intercept (the last not assessable without the outcome mean and SD).
+ * @example evaluateContinuousDevelopment(lungExample).map((c) => c.n) // [918, 401, 259, 38]
+ */
+export function evaluateContinuousDevelopment(inputs: ContinuousDevelopmentInputs): CriterionResult[] {
+  return [
+    devShrinkageCriterion(inputs),
+    devOptimismCriterion(inputs),
+    devResidualSdCriterion(inputs),
+    devInterceptCriterion(inputs),
+  ];
+}
+
+/** What a fixed n delivers for each validation measure, in the same order as the criteria. */
+export function validationPrecisionAtN(inputs: ContinuousValidationInputs, n: number): PrecisionAtN[] {
+  const { confidence } = inputs;
+  const residual = { marginFactor: inputs.residualSdMargin, confidence };
+  return [
+    r2PrecisionAtN({ rSquared: inputs.rSquared, width: inputs.r2Width, confidence }, n),
+    citlPrecisionAtN(
+      {
+        outcomeVariance: inputs.outcomeVariance,
+        rSquaredCitl: inputs.rSquaredCitl,
+        slope: inputs.slope,
+        width: inputs.citlWidth,
+        confidence,
+      },
+      n,
+    ),
+    slopePrecisionAtN({ rSquaredSlope: inputs.rSquaredSlope, slope: inputs.slope, width: inputs.slopeWidth, confidence }, n),
+    residualSdPrecisionAtN('citl', residual, n),
+    residualSdPrecisionAtN('slope', residual, n),
+  ];
+}
+
+/** What a fixed n delivers for each development measure, in the same order as the criteria. */
+export function developmentPrecisionAtN(inputs: ContinuousDevelopmentInputs, n: number): PrecisionAtN[] {
+  return [
+    devShrinkagePrecisionAtN(inputs, n),
+    devOptimismPrecisionAtN(inputs, n),
+    devResidualSdPrecisionAtN(inputs, n),
+    devInterceptPrecisionAtN(inputs, n),
+  ];
+}

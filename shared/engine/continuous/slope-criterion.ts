@@ -1,0 +1,82 @@
+// Validation criterion 3: the calibration slope estimated precisely [VAL-CONT].
+import { formatSignificant } from '../../format/numbers';
+import { requireCount, requireNonZero, requireOpenUnit, requirePositive } from '../helpers/domain-guards';
+import { criticalZ } from '../helpers/critical-z';
+import { seFromCiWidth } from '../helpers/se-from-ci-width';
+import type { CriterionResult, PrecisionAtN } from '../types';
+import type { CriterionText } from './criterion-result';
+import { levelText, sizedCriterion } from './criterion-result';
+import { withinTarget } from './precision-tolerance';
+import type { SampleSize } from './sample-size';
+import { closedFormSize } from './sample-size';
+
+export interface SlopeTarget {
+  readonly rSquaredSlope: number;
+  readonly slope: number;
+  readonly width: number;
+  readonly confidence: number;
+}
+
+/** Intercept and slope leave n − 2 residual degrees of freedom: at least 3 participants. */
+const SLOPE_LOWEST_N = 3;
+
+const TEXT: CriterionText = {
+  id: 'slope',
+  label: 'Precise calibration slope',
+  purpose: 'validation',
+  formula: 'n = β²(1 − R²) / (SE*²·R²) + 1, SE* = W / (2z)',
+  references: ['VAL-CONT'],
+};
+
+/**
+ * Smallest n with SE(b̂) ≤ SE*, where SE(b̂)² = β²(1 − R²)/(R²(n − 1)) for the OLS slope of Y on Ŷ:
+ *   n = ⌈β²(1 − R²)/(SE*²·R²) + 1⌉ (guarded ceiling), at least 3.
+ * Domain: 0 < R² < 1, β ≠ 0 finite, SE* > 0 finite; otherwise a DomainError.
+ * Source: VAL-CONT criterion 3 (METHODS.md 2.3 [DERIVED]). Exact closed form.
+ * @example slopeSampleSize(0.8, 1, 0.051).n // 98
+ */
+export function slopeSampleSize(rSquaredSlope: number, slope: number, targetSe: number): SampleSize {
+  requireOpenUnit('rSquaredSlope', rSquaredSlope);
+  requireNonZero('slope', slope);
+  requirePositive('targetSe', targetSe);
+  return closedFormSize((slope * slope * (1 - rSquaredSlope)) / (targetSe * targetSe * rSquaredSlope) + 1, SLOPE_LOWEST_N);
+}
+
+/**
+ * SE of the calibration slope at n: √(β²(1 − R²)/(R²(n − 1))). Domain as slopeSampleSize, whole n ≥ 2.
+ * Source: VAL-CONT (METHODS.md 2.3). @example slopeStandardError(0.8, 1, 98) // 0.050767…
+ */
+export function slopeStandardError(rSquaredSlope: number, slope: number, n: number): number {
+  requireOpenUnit('rSquaredSlope', rSquaredSlope);
+  requireNonZero('slope', slope);
+  requireCount('n', n, 2);
+  return Math.sqrt((slope * slope * (1 - rSquaredSlope)) / (rSquaredSlope * (n - 1)));
+}
+
+function targetText(t: SlopeTarget): string {
+  return `${levelText(t.confidence)} CI width for the calibration slope ≤ ${formatSignificant(t.width)}`;
+}
+
+/**
+ * Criterion 3 of VAL-CONT as a CriterionResult.
+ * @example slopeCriterion({ rSquaredSlope: 0.8, slope: 1, width: 0.2, confidence: 0.95 }).n // 98
+ */
+export function slopeCriterion(t: SlopeTarget): CriterionResult {
+  const targetSe = seFromCiWidth(t.width, t.confidence);
+  const intermediates = [{ name: 'target SE(slope)', value: targetSe }];
+  return sizedCriterion(TEXT, targetText(t), slopeSampleSize(t.rSquaredSlope, t.slope, targetSe), intermediates);
+}
+
+/**
+ * What a fixed n delivers for the calibration slope: its SE and the CI width 2z·SE.
+ * @example slopePrecisionAtN({ rSquaredSlope: 0.8, slope: 1, width: 0.2, confidence: 0.95 }, 98).se // 0.050767…
+ */
+export function slopePrecisionAtN(t: SlopeTarget, n: number): PrecisionAtN {
+  const base = { id: TEXT.id, label: TEXT.label, n, targetValue: t.width, scale: `${levelText(t.confidence)} CI width` };
+  if (n < SLOPE_LOWEST_N) {
+    return { ...base, se: null, achieved: null, meets: false, reason: 'the calibration slope needs at least 3 participants' };
+  }
+  const se = slopeStandardError(t.rSquaredSlope, t.slope, n);
+  const achieved = 2 * criticalZ(t.confidence) * se;
+  return { ...base, se, achieved, meets: withinTarget(achieved, t.width) };
+}
