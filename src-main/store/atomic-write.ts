@@ -169,7 +169,7 @@ export interface AtomicWriteOutcome {
   readonly warnings: readonly string[];
 }
 
-const queueKey = (file: string): string => (process.platform === 'win32' ? file.toLowerCase() : file);
+const queueKey = (file: string): string => `write:${process.platform === 'win32' ? file.toLowerCase() : file}`;
 
 /**
  * Replaces `target` with `data` atomically and durably (see the module comment). Saves of the
@@ -183,7 +183,7 @@ export function writeFileAtomic(
   options: AtomicWriteOptions = {},
 ): Promise<StoreResult<AtomicWriteOutcome>> {
   const file = path.resolve(target);
-  return oneAtATime(`write:${queueKey(file)}`, () => writeNow(file, data, options));
+  return oneAtATime(queueKey(file), () => writeNow(file, data, options));
 }
 
 async function writeNow(target: string, data: string | Uint8Array, options: AtomicWriteOptions): Promise<StoreResult<AtomicWriteOutcome>> {

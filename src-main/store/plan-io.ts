@@ -5,6 +5,7 @@ import path from 'node:path';
 import { parsePlanText, preparePlanText } from '@shared/model/plan-file';
 import type { Project } from '@shared/model/project';
 import { cleanLeftoverTemps, writeFileAtomic } from './atomic-write';
+import { lockPathFor } from './lock';
 import { done, failed, fileFailure } from './store-error';
 import type { StoreResult } from './store-error';
 
@@ -14,6 +15,11 @@ export const MAX_PLAN_BYTES = 64 * 1024 * 1024;
 /** `<name>.plumb` → `<name>.plumb.bak`, beside it. */
 export function backupPathFor(planPath: string): string {
   return `${planPath}.bak`;
+}
+
+/** The names of the files that live beside a plan: itself, its backup and its lock. */
+function companionNames(planPath: string): Set<string> {
+  return new Set([planPath, backupPathFor(planPath), lockPathFor(planPath)].map((p) => path.basename(p)));
 }
 
 /** Refuses anything but an absolute path as text (a relative one would depend on the working folder). */
@@ -77,7 +83,7 @@ export async function readPlanFile(planPath: string): Promise<StoreResult<ReadPl
   } catch (e) {
     return fileFailure(e, 'open', file);
   }
-  await cleanLeftoverTemps(path.dirname(file), new Set([path.basename(file), path.basename(backupPathFor(file))]));
+  await cleanLeftoverTemps(path.dirname(file), companionNames(file));
   const text = decode(bytes);
   if (!text.ok) return text;
   const parsed = parsePlanText(text.value);

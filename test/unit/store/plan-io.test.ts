@@ -82,10 +82,10 @@ describe('readPlanFile refuses damaged files with a clear message and leaves the
   });
 
   it.each([
-    ['a missing file', () => path.join(folder, 'nothing here.plumb'), 'not-found'],
-    ['a folder', () => folder, 'is-directory'],
-    ['a relative path', () => 'plan.plumb', 'bad-path'],
-    ['a path with a NUL', () => `${folder}/a\0b.plumb`, 'bad-path'],
+    ['a missing file', (): string => path.join(folder, 'nothing here.plumb'), 'not-found'],
+    ['a folder', (): string => folder, 'is-directory'],
+    ['a relative path', (): string => 'plan.plumb', 'bad-path'],
+    ['a path with a NUL', (): string => `${folder}/a\0b.plumb`, 'bad-path'],
   ] as const)('refuses %s', async (_label, where, code) => {
     const result = await readPlanFile(where());
     expect(result).toMatchObject({ ok: false, error: { code } });
