@@ -2,7 +2,25 @@
 // sandboxed preload imports this file and may not import zod or anything with dependencies.
 // shared/model/contract.ts maps every name here to its request and response schema; a unit test
 // checks that the two lists are the same.
-export const CHANNELS = ['appInfo', 'loadDemo'] as const;
+export const CHANNELS = [
+  'appInfo',
+  'loadDemo',
+  'openPlan',
+  'revertPlan',
+  'peekPlan',
+  'savePlan',
+  'closePlan',
+  'autosave',
+  'listRecovery',
+  'restoreRecovery',
+  'discardRecovery',
+  'recentPlans',
+  'forgetRecent',
+  'importPopulations',
+  'exportPopulation',
+  'chooseFile',
+  'listFolder',
+] as const;
 
 export type Channel = (typeof CHANNELS)[number];
 

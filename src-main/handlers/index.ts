@@ -4,6 +4,8 @@ import type { ParsedRequestOf, ResponseOf } from '@shared/model/contract';
 import type { HandlerContext } from './context';
 import { appInfo } from './app-info';
 import { loadDemo } from './load-demo';
+import { chooseFile, listFolder } from './file-choice';
+import * as planFiles from './plan-files';
 
 export type Handlers = {
   readonly [C in Channel]: (request: ParsedRequestOf<C>, ctx: HandlerContext) => Promise<ResponseOf<C>>;
@@ -12,4 +14,7 @@ export type Handlers = {
 export const handlers: Handlers = {
   appInfo,
   loadDemo,
+  ...planFiles,
+  chooseFile,
+  listFolder,
 };
