@@ -117,6 +117,11 @@ export const continuousPopulationSchema = z.object({
       }
     }
   }
+  // Every value between the ends is swept too, and a calibration slope of 0 is not admissible.
+  const slope = population.ranges.slope;
+  if (slope !== undefined && slope.low < 0 && slope.high > 0) {
+    ctx.addIssue({ code: 'custom', path: ['ranges', 'slope', 'high'], input: slope.high, message: 'the range of the calibration slope must not include 0 (give both ends the same sign)' });
+  }
 });
 export type ContinuousPopulation = z.infer<typeof continuousPopulationSchema>;
 
