@@ -2,7 +2,14 @@
 // and its binding criterion, the enrolment target after missing outcomes, months to recruit, the
 // finish date and feasibility; plus the totals row. The workspace table, its TSV copy, the CSV
 // and XLSX exports, the report and the command line all read these rows.
-import { enrolmentTarget, feasibility, finishDate, monthlyEnrolment, monthsToRecruit, type Feasibility } from '../engine/recruitment/recruitment';
+import {
+  enrolmentTarget,
+  feasibility,
+  finishDate,
+  monthlyEnrolment,
+  monthsToRecruit,
+  type Feasibility,
+} from '../engine/recruitment/recruitment';
 import type { CriterionResult, PrecisionAtN } from '../engine/types';
 import type { Project, Population } from '../model/project';
 

@@ -5,7 +5,13 @@ import { criterionColumns } from '@shared/summary/criterion-columns';
 import { seriesColour } from './palette';
 
 /** n per population by criterion, in the table's order; the binding criterion's bar is outlined and opaque. */
-export function CriterionBars({ rows, selectedId }: { readonly rows: readonly ComparisonRow[]; readonly selectedId: string | null }) {
+export function CriterionBars({
+  rows,
+  selectedId,
+}: {
+  readonly rows: readonly ComparisonRow[];
+  readonly selectedId: string | null;
+}) {
   const columns = criterionColumns(rows);
   const data = rows.map((row) => {
     const entry: Record<string, number | string | null> = { name: row.name, id: row.populationId, binding: row.binding };
@@ -15,10 +21,10 @@ export function CriterionBars({ rows, selectedId }: { readonly rows: readonly Co
   return (
     <figure className="chart" aria-label="Sample size per population by criterion">
       <figcaption>n per population by criterion (binding criterion opaque and outlined)</figcaption>
-      <ResponsiveContainer width="100%" height={280}>
+      <ResponsiveContainer width="100%" height={320}>
         <BarChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
           <CartesianGrid strokeDasharray="3 3" />
-          <XAxis dataKey="name" interval={0} tick={{ fontSize: 11 }} />
+          <XAxis dataKey="name" interval={0} tick={{ fontSize: 11 }} angle={-18} textAnchor="end" height={70} />
           <YAxis tickFormatter={(v: number) => formatCount(v)} width={60} />
           <Tooltip formatter={(value) => formatCount(typeof value === 'number' ? value : Number(value))} />
           <Legend />

@@ -1,4 +1,14 @@
-import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import {
+  CartesianGrid,
+  Line,
+  LineChart,
+  ReferenceDot,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
 import { formatCount, formatSignificant } from '@shared/format/numbers';
 import type { Population, Project } from '@shared/model/project';
 import type { Planner } from '@shared/summary/comparison';
@@ -8,7 +18,15 @@ import { seriesColour } from './palette';
  * Required n against each anticipated value across its low–high range (the others held at their
  * base values); the base value is marked, with the base n as a dashed line.
  */
-export function SensitivityChart({ population, project, planner }: { readonly population: Population; readonly project: Project; readonly planner: Planner }) {
+export function SensitivityChart({
+  population,
+  project,
+  planner,
+}: {
+  readonly population: Population;
+  readonly project: Project;
+  readonly planner: Planner;
+}) {
   let curves: ReturnType<NonNullable<Planner['sensitivity']>> = [];
   let problem: string | null = null;
   try {
@@ -34,12 +52,30 @@ export function SensitivityChart({ population, project, planner }: { readonly po
             <ResponsiveContainer width="100%" height={190}>
               <LineChart data={[...curve.points]} margin={{ top: 8, right: 12, bottom: 4, left: 4 }}>
                 <CartesianGrid strokeDasharray="3 3" />
-                <XAxis dataKey="value" type="number" domain={['dataMin', 'dataMax']} tickFormatter={(v: number) => formatSignificant(v, 3)} />
+                <XAxis
+                  dataKey="value"
+                  type="number"
+                  domain={['dataMin', 'dataMax']}
+                  tickFormatter={(v: number) => formatSignificant(v, 3)}
+                />
                 <YAxis tickFormatter={(v: number) => formatCount(v)} width={56} />
-                <Tooltip labelFormatter={(v) => `${curve.label} ${formatSignificant(Number(v), 4)}`} formatter={(v) => formatCount(Number(v))} />
+                <Tooltip
+                  labelFormatter={(v) => `${curve.label} ${formatSignificant(Number(v), 4)}`}
+                  formatter={(v) => formatCount(Number(v))}
+                />
                 {curve.baseN === null ? null : <ReferenceLine y={curve.baseN} strokeDasharray="4 4" stroke="currentColor" />}
-                <Line dataKey="n" name="required n" stroke={seriesColour(index)} dot={false} strokeWidth={2} isAnimationActive={false} connectNulls={false} />
-                {curve.baseN === null ? null : <ReferenceDot x={curve.base} y={curve.baseN} r={5} fill={seriesColour(index)} stroke="currentColor" />}
+                <Line
+                  dataKey="n"
+                  name="required n"
+                  stroke={seriesColour(index)}
+                  dot={false}
+                  strokeWidth={2}
+                  isAnimationActive={false}
+                  connectNulls={false}
+                />
+                {curve.baseN === null ? null : (
+                  <ReferenceDot x={curve.base} y={curve.baseN} r={5} fill={seriesColour(index)} stroke="currentColor" />
+                )}
               </LineChart>
             </ResponsiveContainer>
           </figure>

@@ -48,7 +48,16 @@ export interface ComparisonTableProps {
   readonly invalidIds: ReadonlySet<string>;
 }
 
-export function ComparisonTable({ rows, totals, sorting, onSortingChange, selectedId, onSelect, onOrder, invalidIds }: ComparisonTableProps) {
+export function ComparisonTable({
+  rows,
+  totals,
+  sorting,
+  onSortingChange,
+  selectedId,
+  onSelect,
+  onOrder,
+  invalidIds,
+}: ComparisonTableProps) {
   const columnsSpec = useMemo(() => criterionColumns(rows), [rows]);
   const columns = useMemo(
     () =>
@@ -70,14 +79,6 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
             </span>
           ),
         }),
-        ...columnsSpec.map((spec) =>
-          helper.accessor((row) => row.criteria.find((c) => c.id === spec.id)?.n ?? -1, {
-            id: `criterion:${spec.id}`,
-            header: spec.header,
-            sortUndefined: 'last',
-            cell: (info) => criterionCell(info.row.original, spec),
-          }),
-        ),
         helper.accessor((row) => row.requiredN ?? -1, {
           id: 'required',
           header: 'Required n',
@@ -109,7 +110,12 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
         helper.accessor((row) => row.months ?? Number.POSITIVE_INFINITY, {
           id: 'months',
           header: 'Months to recruit',
-          cell: (info) => (info.row.original.months === null ? <span className="muted">no accrual given</span> : formatMonths(info.row.original.months)),
+          cell: (info) =>
+            info.row.original.months === null ? (
+              <span className="muted">no accrual given</span>
+            ) : (
+              formatMonths(info.row.original.months)
+            ),
         }),
         helper.accessor((row) => row.finishDate ?? '', {
           id: 'finish',
@@ -130,6 +136,14 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
             );
           },
         }),
+        ...columnsSpec.map((spec) =>
+          helper.accessor((row) => row.criteria.find((c) => c.id === spec.id)?.n ?? -1, {
+            id: `criterion:${spec.id}`,
+            header: () => <span title={spec.label}>{spec.header}</span>,
+            sortUndefined: 'last',
+            cell: (info) => criterionCell(info.row.original, spec),
+          }),
+        ),
       ]),
     [columnsSpec, invalidIds],
   );
@@ -193,7 +207,11 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
               {group.headers.map((header) => {
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} scope="col" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}>
+                  <th
+                    key={header.id}
+                    scope="col"
+                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
+                  >
                     <button type="button" className="sort" onClick={header.column.getToggleSortingHandler()} tabIndex={-1}>
                       <table.FlexRender header={header} />
                       {sorted === 'asc' ? ' ▲' : sorted === 'desc' ? ' ▼' : ''}
@@ -226,9 +244,6 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
           <tr className="totals">
             <th scope="row">Total</th>
             <td>{totals.populations} populations</td>
-            {columnsSpec.map((spec) => (
-              <td key={spec.id} />
-            ))}
             <td />
             <td />
             <td data-testid="total-enrolment">
@@ -240,6 +255,9 @@ export function ComparisonTable({ rows, totals, sorting, onSortingChange, select
             </td>
             <td />
             <td>{totals.exceeding > 0 ? `${totals.exceeding} exceed the window` : ''}</td>
+            {columnsSpec.map((spec) => (
+              <td key={spec.id} />
+            ))}
           </tr>
         </tfoot>
       </table>

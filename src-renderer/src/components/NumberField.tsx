@@ -26,7 +26,18 @@ function display(value: number | string | undefined): string {
  * and allowed range, and keeps a rejected entry visible with its message until it is fixed
  * (Escape restores the accepted value).
  */
-export function NumberField({ label, value, kind = 'number', unit, allowed, defaultText, required, help, onCommit, testId }: NumberFieldProps) {
+export function NumberField({
+  label,
+  value,
+  kind = 'number',
+  unit,
+  allowed,
+  defaultText,
+  required,
+  help,
+  onCommit,
+  testId,
+}: NumberFieldProps) {
   const id = useId();
   const [text, setText] = useState(display(value));
   const [error, setError] = useState<string | null>(null);
@@ -40,7 +51,11 @@ export function NumberField({ label, value, kind = 'number', unit, allowed, defa
     setError(onCommit(text));
   };
 
-  const hint = [unit ? `unit: ${unit}` : null, defaultText ? `default: ${defaultText}` : required ? 'required' : 'optional', allowed ? `allowed: ${allowed}` : null]
+  const hint = [
+    unit ? `unit: ${unit}` : null,
+    defaultText ? `default: ${defaultText}` : required ? 'required' : 'optional',
+    allowed ? `allowed: ${allowed}` : null,
+  ]
     .filter((part) => part !== null)
     .join(' · ');
 

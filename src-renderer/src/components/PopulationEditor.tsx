@@ -81,31 +81,51 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
         return 'give both ends of the range, or clear both';
       }
       const base = getAt(population, spec.path) as number | undefined;
-      const next = { low: end === 'low' ? parsed.value : (other ?? base ?? parsed.value), high: end === 'high' ? parsed.value : (other ?? base ?? parsed.value) };
+      const next = {
+        low: end === 'low' ? parsed.value : (other ?? base ?? parsed.value),
+        high: end === 'high' ? parsed.value : (other ?? base ?? parsed.value),
+      };
       return commitNumberRange(`ranges.${key}`, spec.label, next);
     };
     return (
-      <div className="range-row" key={`${spec.path}-range`}>
-        <NumberField label={`${spec.label}: low`} value={range?.low} onCommit={(text) => commitEnd('low', text)} testId={`range-${key}-low`} />
-        <NumberField label={`${spec.label}: high`} value={range?.high} onCommit={(text) => commitEnd('high', text)} testId={`range-${key}-high`} />
-        <label className="source">
-          Source of this assumption
-          <input
-            type="text"
-            defaultValue={population.sources[key] ?? ''}
-            key={`${population.id}-${key}-source`}
-            onBlur={(event) => {
-              const text = event.target.value.trim();
-              if (text !== (population.sources[key] ?? '')) {
-                const sources = { ...population.sources };
-                if (text === '') delete sources[key];
-                else sources[key] = text;
-                onChange(`source of ${spec.label} of ${population.name}`, { ...population, sources });
-              }
-            }}
+      <details
+        className="range-details"
+        key={`${spec.path}-range`}
+        open={range !== undefined || population.sources[key] !== undefined}
+      >
+        <summary>Range and source{range ? `: ${range.low} to ${range.high}` : ''}</summary>
+        <div className="range-row">
+          <NumberField
+            label={`${spec.label}: low`}
+            value={range?.low}
+            onCommit={(text) => commitEnd('low', text)}
+            testId={`range-${key}-low`}
           />
-        </label>
-      </div>
+          <NumberField
+            label={`${spec.label}: high`}
+            value={range?.high}
+            onCommit={(text) => commitEnd('high', text)}
+            testId={`range-${key}-high`}
+          />
+          <label className="source">
+            Source of this assumption
+            <input
+              type="text"
+              defaultValue={population.sources[key] ?? ''}
+              key={`${population.id}-${key}-source`}
+              onBlur={(event) => {
+                const text = event.target.value.trim();
+                if (text !== (population.sources[key] ?? '')) {
+                  const sources = { ...population.sources };
+                  if (text === '') delete sources[key];
+                  else sources[key] = text;
+                  onChange(`source of ${spec.label} of ${population.name}`, { ...population, sources });
+                }
+              }}
+            />
+          </label>
+        </div>
+      </details>
     );
   };
 
@@ -177,9 +197,14 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
               {group === 'anticipated' ? rangeFields(spec) : null}
             </div>
           ))}
-          {group === 'anticipated' ? <VarianceHelper onUse={(variance) => setDirect('anticipated.outcomeVariance', 'outcome variance', variance)} /> : null}
+          {group === 'anticipated' ? (
+            <VarianceHelper onUse={(variance) => setDirect('anticipated.outcomeVariance', 'outcome variance', variance)} />
+          ) : null}
           {group === 'precision' ? (
-            <WidthHelper confidence={population.precision.confidence} onUse={(width) => setDirect('precision.citl.width', 'CITL width', width)} />
+            <WidthHelper
+              confidence={population.precision.confidence}
+              onUse={(width) => setDirect('precision.citl.width', 'CITL width', width)}
+            />
           ) : null}
         </fieldset>
       ))}

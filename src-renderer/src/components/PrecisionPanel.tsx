@@ -2,7 +2,13 @@ import { formatCount, formatSignificant } from '@shared/format/numbers';
 import type { PrecisionAtN } from '@shared/engine/types';
 
 /** For a fixed available n (an existing cohort): what each measure's CI will be, and which targets it misses. */
-export function PrecisionPanel({ availableN, precision }: { readonly availableN: number; readonly precision: readonly PrecisionAtN[] }) {
+export function PrecisionPanel({
+  availableN,
+  precision,
+}: {
+  readonly availableN: number;
+  readonly precision: readonly PrecisionAtN[];
+}) {
   const misses = precision.filter((p) => p.meets === false);
   return (
     <section className="precision" aria-labelledby="precision-title">

@@ -10,7 +10,11 @@ export interface ProjectSettingsProps {
 }
 
 /** Applies a project-level edit and validates the whole project with the schema. */
-function applyProjectEdit(project: Project, path: string, value: unknown): { ok: true; project: Project } | { ok: false; message: string } {
+function applyProjectEdit(
+  project: Project,
+  path: string,
+  value: unknown,
+): { ok: true; project: Project } | { ok: false; message: string } {
   const parsed = projectSchema.safeParse(setAt(project, path, value), { reportInput: true });
   if (parsed.success) return { ok: true, project: parsed.data };
   const problems = fieldProblems(parsed.error);
@@ -20,7 +24,11 @@ function applyProjectEdit(project: Project, path: string, value: unknown): { ok:
 
 /** The plan as a whole: its name, the model being validated, model updating and the study window. */
 export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
-  const number = (path: string, label: string, extra: { unit?: string; allowed: string; defaultText?: string; integer?: boolean; help: string }) => (
+  const number = (
+    path: string,
+    label: string,
+    extra: { unit?: string; allowed: string; defaultText?: string; integer?: boolean; help: string },
+  ) => (
     <NumberField
       label={label}
       value={getAt(project, path) as number | undefined}
@@ -110,8 +118,16 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
             allowed: 'between 0 and 1 (exclusive)',
             help: 'Optimism-adjusted R² expected of the updated model.',
           })}
-          {number('updating.targetShrinkage', 'Target shrinkage factor', { allowed: 'between 0 and 1 (exclusive)', defaultText: '0.9', help: 'Expected shrinkage of at least this value.' })}
-          {number('updating.optimismMargin', 'Allowed optimism in R²', { allowed: 'between 0 and 1 (exclusive)', defaultText: '0.05', help: 'Apparent minus adjusted R² at most this value.' })}
+          {number('updating.targetShrinkage', 'Target shrinkage factor', {
+            allowed: 'between 0 and 1 (exclusive)',
+            defaultText: '0.9',
+            help: 'Expected shrinkage of at least this value.',
+          })}
+          {number('updating.optimismMargin', 'Allowed optimism in R²', {
+            allowed: 'between 0 and 1 (exclusive)',
+            defaultText: '0.05',
+            help: 'Apparent minus adjusted R² at most this value.',
+          })}
           <label className="field">
             Shrinkage criterion form{' '}
             <select
@@ -142,7 +158,11 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
               return null;
             }}
           />
-          {number('study.windowMonths', 'Recruitment window', { unit: 'months', allowed: 'greater than 0, at most 600', help: 'Months available for recruitment in the funding period.' })}
+          {number('study.windowMonths', 'Recruitment window', {
+            unit: 'months',
+            allowed: 'greater than 0, at most 600',
+            help: 'Months available for recruitment in the funding period.',
+          })}
         </fieldset>
       </div>
     </details>

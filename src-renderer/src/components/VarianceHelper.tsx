@@ -14,9 +14,24 @@ type Method = 'sd' | 'iqr' | 'iqr-n' | 'log-quartiles' | 'range' | 'five';
 const METHODS: readonly { id: Method; label: string; inputs: readonly string[]; source: string }[] = [
   { id: 'sd', label: 'From an SD', inputs: ['SD'], source: 'variance = SD²' },
   { id: 'iqr', label: 'From the IQR (normal outcome)', inputs: ['Q1', 'Q3'], source: 'SD = IQR / 1.349 (normal quantiles)' },
-  { id: 'iqr-n', label: 'From the IQR and sample size', inputs: ['Q1', 'Q3', 'n'], source: 'Wan et al., BMC Med Res Methodol 2014' },
-  { id: 'range', label: 'From the range and sample size', inputs: ['minimum', 'maximum', 'n'], source: 'Wan et al., BMC Med Res Methodol 2014' },
-  { id: 'five', label: 'From min, quartiles, max and sample size', inputs: ['minimum', 'Q1', 'Q3', 'maximum', 'n'], source: 'Wan et al., BMC Med Res Methodol 2014' },
+  {
+    id: 'iqr-n',
+    label: 'From the IQR and sample size',
+    inputs: ['Q1', 'Q3', 'n'],
+    source: 'Wan et al., BMC Med Res Methodol 2014',
+  },
+  {
+    id: 'range',
+    label: 'From the range and sample size',
+    inputs: ['minimum', 'maximum', 'n'],
+    source: 'Wan et al., BMC Med Res Methodol 2014',
+  },
+  {
+    id: 'five',
+    label: 'From min, quartiles, max and sample size',
+    inputs: ['minimum', 'Q1', 'Q3', 'maximum', 'n'],
+    source: 'Wan et al., BMC Med Res Methodol 2014',
+  },
   {
     id: 'log-quartiles',
     label: 'Log-modelled outcome: median and quartiles on the original scale',
@@ -54,7 +69,12 @@ export function VarianceHelper({ onUse }: { readonly onUse: (variance: number) =
   const parsed = spec.inputs.map((name) => parseNumberText(texts[`${method}:${name}`] ?? ''));
   if (parsed.every((p) => p.ok && p.value !== undefined)) {
     try {
-      result = { variance: compute(method, parsed.map((p) => (p.ok ? (p.value ?? Number.NaN) : Number.NaN))) };
+      result = {
+        variance: compute(
+          method,
+          parsed.map((p) => (p.ok ? (p.value ?? Number.NaN) : Number.NaN)),
+        ),
+      };
     } catch (error) {
       result = { error: error instanceof DomainError ? error.message : String(error) };
     }

@@ -24,7 +24,8 @@ export function WidthHelper({ confidence, onUse }: { readonly confidence: number
     <fieldset className="helper">
       <legend>CITL width from a tolerance on the original scale</legend>
       <label>
-        Tolerance ± <input type="text" inputMode="decimal" size={5} value={percent} onChange={(event) => setPercent(event.target.value)} /> %
+        Tolerance ±{' '}
+        <input type="text" inputMode="decimal" size={5} value={percent} onChange={(event) => setPercent(event.target.value)} /> %
       </label>
       <p className="hint">For outcomes modelled on the log scale: half-width ln(1 + r), the conservative side.</p>
       {result && 'width' in result ? (

@@ -33,7 +33,15 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
   const [orderIds, setOrderIds] = useState<readonly string[]>([]);
   const order = useMemo(() => orderBy(rows, orderIds), [rows, orderIds]);
   const totals = useMemo(() => comparisonTotals(rows), [rows]);
-  const invalidIds = useMemo(() => new Set(Object.entries(invalid).filter(([, fields]) => Object.keys(fields).length > 0).map(([id]) => id)), [invalid]);
+  const invalidIds = useMemo(
+    () =>
+      new Set(
+        Object.entries(invalid)
+          .filter(([, fields]) => Object.keys(fields).length > 0)
+          .map(([id]) => id),
+      ),
+    [invalid],
+  );
 
   const selected = project.populations.find((p) => p.id === selectedId) ?? project.populations[0] ?? null;
   const selectedRow = rows.find((r) => r.populationId === selected?.id) ?? null;
@@ -72,7 +80,11 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
             <button type="button" onClick={copyTable}>
               Copy table
             </button>
-            <button type="button" onClick={() => setSorting(DEFAULT_SORT)} disabled={JSON.stringify(sorting) === JSON.stringify(DEFAULT_SORT)}>
+            <button
+              type="button"
+              onClick={() => setSorting(DEFAULT_SORT)}
+              disabled={JSON.stringify(sorting) === JSON.stringify(DEFAULT_SORT)}
+            >
               Rank by required n
             </button>
           </div>
@@ -95,7 +107,9 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
       <div className="lower">
         <div className="charts">
           {rows.length > 0 ? <CriterionBars rows={order} selectedId={selected?.id ?? null} /> : null}
-          {rows.length > 0 ? <RecruitmentTimeline rows={order} windowMonths={project.study.windowMonths} selectedId={selected?.id ?? null} /> : null}
+          {rows.length > 0 ? (
+            <RecruitmentTimeline rows={order} windowMonths={project.study.windowMonths} selectedId={selected?.id ?? null} />
+          ) : null}
           {selected ? <SensitivityChart population={selected} project={project} planner={planner} /> : null}
         </div>
         {selected ? (
@@ -125,7 +139,10 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
                 setSelectedId(result.value.population.id);
               }}
               onRemove={() => {
-                onEdit(`remove ${selected.name}`, (p) => ({ ...p, populations: p.populations.filter((q) => q.id !== selected.id) }));
+                onEdit(`remove ${selected.name}`, (p) => ({
+                  ...p,
+                  populations: p.populations.filter((q) => q.id !== selected.id),
+                }));
                 setSelectedId(null);
                 onStatus(`${selected.name} was removed (Undo brings it back).`);
               }}

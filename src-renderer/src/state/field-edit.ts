@@ -4,7 +4,8 @@ import { continuousPopulationSchema, type ContinuousPopulation } from '@shared/m
 import { fieldProblems } from '@shared/model/validation-message';
 import { setAt } from './paths';
 
-export type FieldEdit = { readonly ok: true; readonly population: ContinuousPopulation } | { readonly ok: false; readonly message: string };
+export type FieldEdit =
+  { readonly ok: true; readonly population: ContinuousPopulation } | { readonly ok: false; readonly message: string };
 
 /** Parses typed text as a number: empty → undefined (use the default), otherwise a finite number. */
 export function parseNumberText(text: string): { ok: true; value: number | undefined } | { ok: false; message: string } {
