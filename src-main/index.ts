@@ -41,12 +41,21 @@ void app.whenReady().then(() => {
     printToPdf,
     dialogs: {
       async chooseOpenPath({ title, defaultPath }) {
-        const options = { title, properties: ['openFile' as const], filters: [{ name: 'Plumbline plan', extensions: ['plumb'] }], ...(defaultPath ? { defaultPath } : {}) };
+        const options = {
+          title,
+          properties: ['openFile' as const],
+          filters: [{ name: 'Plumbline plan', extensions: ['plumb'] }],
+          ...(defaultPath ? { defaultPath } : {}),
+        };
         const result = mainWindow ? await dialog.showOpenDialog(mainWindow, options) : await dialog.showOpenDialog(options);
         return result.canceled ? null : (result.filePaths[0] ?? null);
       },
       async chooseSavePath({ title, defaultPath }) {
-        const options = { title, filters: [{ name: 'Plumbline plan', extensions: ['plumb'] }], ...(defaultPath ? { defaultPath } : {}) };
+        const options = {
+          title,
+          filters: [{ name: 'Plumbline plan', extensions: ['plumb'] }],
+          ...(defaultPath ? { defaultPath } : {}),
+        };
         const result = mainWindow ? await dialog.showSaveDialog(mainWindow, options) : await dialog.showSaveDialog(options);
         return result.canceled ? null : (result.filePath ?? null);
       },
@@ -63,13 +72,19 @@ void app.whenReady().then(() => {
   serveRenderer(path.join(import.meta.dirname, '../renderer'));
   for (const channel of CHANNELS) {
     ipcMain.handle(channel, (event, payload: unknown) => {
-      if (!isAppUrl(event.senderFrame?.url ?? '')) return { ok: false, error: { code: 'forbidden', message: 'Calls are accepted from the app only.' } };
+      if (!isAppUrl(event.senderFrame?.url ?? ''))
+        return { ok: false, error: { code: 'forbidden', message: 'Calls are accepted from the app only.' } };
       return dispatch(channel, payload, ctx);
     });
   }
 
   mainWindow = createMainWindow(path.join(import.meta.dirname, '../preload/index.cjs'));
-  Menu.setApplicationMenu(buildMenu(() => mainWindow, (command) => mainWindow?.webContents.send('menu-command', command)));
+  Menu.setApplicationMenu(
+    buildMenu(
+      () => mainWindow,
+      (command) => mainWindow?.webContents.send('menu-command', command),
+    ),
+  );
   mainWindow.on('closed', () => {
     mainWindow = null;
   });

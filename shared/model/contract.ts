@@ -12,10 +12,19 @@ export interface ChannelSpec {
 }
 
 const noArguments = z.object({}).strict();
-const filePath = z.string().min(1, { error: 'a file path must not be empty' }).max(4096, { error: 'a file path must be at most 4096 characters' });
+const filePath = z
+  .string()
+  .min(1, { error: 'a file path must not be empty' })
+  .max(4096, { error: 'a file path must be at most 4096 characters' });
 const documentId = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, { error: 'a document id is 1 to 64 letters, digits, - or _' });
 
-const lockHolderSchema = z.object({ pid: z.number(), hostname: z.string(), instanceId: z.string(), documentId: z.string(), since: z.string() });
+const lockHolderSchema = z.object({
+  pid: z.number(),
+  hostname: z.string(),
+  instanceId: z.string(),
+  documentId: z.string(),
+  since: z.string(),
+});
 /** Whether this window holds the plan's lock, or someone else has it open. */
 export const lockStateSchema = z.discriminatedUnion('status', [
   z.object({ status: z.literal('acquired') }),
@@ -23,7 +32,11 @@ export const lockStateSchema = z.discriminatedUnion('status', [
   z.object({ status: z.literal('took-over'), previous: lockHolderSchema }),
   z.object({
     status: z.literal('held-elsewhere'),
-    warning: z.object({ kind: z.enum(['another-window', 'another-instance', 'another-computer']), holder: lockHolderSchema, message: z.string() }),
+    warning: z.object({
+      kind: z.enum(['another-window', 'another-instance', 'another-computer']),
+      holder: lockHolderSchema,
+      message: z.string(),
+    }),
   }),
   z.object({ status: z.literal('unavailable'), message: z.string() }),
 ]);
@@ -78,7 +91,13 @@ export const contract = {
   },
   savePlan: {
     request: z
-      .object({ path: filePath, project: projectSchema, documentId, previousPath: filePath.nullable().default(null), takeOverLock: z.boolean().default(false) })
+      .object({
+        path: filePath,
+        project: projectSchema,
+        documentId,
+        previousPath: filePath.nullable().default(null),
+        takeOverLock: z.boolean().default(false),
+      })
       .strict(),
     response: savedSchema,
   },
@@ -108,7 +127,13 @@ export const contract = {
   },
   restoreRecovery: {
     request: z.object({ documentId }).strict(),
-    response: z.object({ documentId: z.string(), originalPath: z.string().nullable(), savedAt: z.string(), project: projectSchema, migratedFrom: z.number().nullable() }),
+    response: z.object({
+      documentId: z.string(),
+      originalPath: z.string().nullable(),
+      savedAt: z.string(),
+      project: projectSchema,
+      migratedFrom: z.number().nullable(),
+    }),
   },
   discardRecovery: {
     request: z.object({ documentId }).strict(),
@@ -123,15 +148,29 @@ export const contract = {
     response: recentListSchema,
   },
   importPopulations: {
-    request: z.object({ project: projectSchema, sourcePath: filePath, populationIds: z.array(z.string()).max(10_000).optional() }).strict(),
-    response: z.object({ project: projectSchema, imported: z.array(z.object({ sourceId: z.string(), id: z.string(), name: z.string() })) }),
+    request: z
+      .object({ project: projectSchema, sourcePath: filePath, populationIds: z.array(z.string()).max(10_000).optional() })
+      .strict(),
+    response: z.object({
+      project: projectSchema,
+      imported: z.array(z.object({ sourceId: z.string(), id: z.string(), name: z.string() })),
+    }),
   },
   exportPopulation: {
-    request: z.object({ project: projectSchema, populationId: z.string().min(1), path: filePath, takeOverLock: z.boolean().default(false) }).strict(),
+    request: z
+      .object({
+        project: projectSchema,
+        populationId: z.string().min(1),
+        path: filePath,
+        takeOverLock: z.boolean().default(false),
+      })
+      .strict(),
     response: z.object({ path: z.string(), bytes: z.number() }),
   },
   chooseFile: {
-    request: z.object({ purpose: z.enum(['open', 'save', 'import', 'export']), suggestedName: z.string().max(255).optional() }).strict(),
+    request: z
+      .object({ purpose: z.enum(['open', 'save', 'import', 'export']), suggestedName: z.string().max(255).optional() })
+      .strict(),
     response: z.object({ native: z.boolean(), path: z.string().nullable() }),
   },
   listFolder: {

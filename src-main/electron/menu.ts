@@ -40,7 +40,13 @@ export function buildMenu(getWindow: () => BrowserWindow | null, send: (command:
     },
     {
       label: 'View',
-      submenu: [{ role: 'resetZoom' }, { role: 'zoomIn' }, { role: 'zoomOut' }, { type: 'separator' }, { role: 'togglefullscreen' }],
+      submenu: [
+        { role: 'resetZoom' },
+        { role: 'zoomIn' },
+        { role: 'zoomOut' },
+        { type: 'separator' },
+        { role: 'togglefullscreen' },
+      ],
     },
     {
       label: 'Help',

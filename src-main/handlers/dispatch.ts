@@ -14,14 +14,20 @@ export function isChannel(name: unknown): name is Channel {
 
 export async function dispatch(channel: unknown, payload: unknown, ctx: HandlerContext): Promise<Envelope<unknown>> {
   if (!isChannel(channel)) {
-    return { ok: false, error: { code: 'unknown-channel', message: `There is no channel named ${JSON.stringify(String(channel)).slice(0, 80)}.` } };
+    return {
+      ok: false,
+      error: { code: 'unknown-channel', message: `There is no channel named ${JSON.stringify(String(channel)).slice(0, 80)}.` },
+    };
   }
   const spec = contract[channel];
   const parsed = spec.request.safeParse(payload, { reportInput: true });
   if (!parsed.success) {
     return {
       ok: false,
-      error: { code: 'invalid-request', message: `The request to ${channel} was refused:\n${describeProblems(fieldProblems(parsed.error))}` },
+      error: {
+        code: 'invalid-request',
+        message: `The request to ${channel} was refused:\n${describeProblems(fieldProblems(parsed.error))}`,
+      },
     };
   }
   try {
@@ -29,7 +35,10 @@ export async function dispatch(channel: unknown, payload: unknown, ctx: HandlerC
     const value = await handler(parsed.data, ctx);
     const checked = spec.response.safeParse(value);
     if (!checked.success) {
-      return { ok: false, error: { code: 'invalid-response', message: `${channel} produced an answer that breaks its contract.` } };
+      return {
+        ok: false,
+        error: { code: 'invalid-response', message: `${channel} produced an answer that breaks its contract.` },
+      };
     }
     return { ok: true, value: checked.data };
   } catch (error) {

@@ -5,7 +5,12 @@ import type { ParsedRequestOf, ResponseOf } from '@shared/model/contract';
 import type { HandlerContext } from './context';
 import { HandlerError } from './handler-error';
 
-const TITLES = { open: 'Open a plan', save: 'Save the plan', import: 'Import populations from a plan', export: 'Export the population as a plan' } as const;
+const TITLES = {
+  open: 'Open a plan',
+  save: 'Save the plan',
+  import: 'Import populations from a plan',
+  export: 'Export the population as a plan',
+} as const;
 
 /** A native file dialog where the host has one (desktop); the browser host answers native: false and the page shows its own picker. */
 export async function chooseFile(request: ParsedRequestOf<'chooseFile'>, ctx: HandlerContext): Promise<ResponseOf<'chooseFile'>> {
@@ -27,11 +32,18 @@ export async function listFolder(request: ParsedRequestOf<'listFolder'>, ctx: Ha
     entries = await readdir(folder, { withFileTypes: true });
   } catch (error) {
     const code = typeof error === 'object' && error !== null && 'code' in error ? String(error.code) : '';
-    throw new HandlerError(code === 'ENOENT' ? 'not-found' : 'io-error', `The folder "${folder}" could not be listed${code ? ` (${code})` : ''}.`);
+    throw new HandlerError(
+      code === 'ENOENT' ? 'not-found' : 'io-error',
+      `The folder "${folder}" could not be listed${code ? ` (${code})` : ''}.`,
+    );
   }
   const listed = entries
     .filter((e) => !e.name.startsWith('.') && (e.isDirectory() || (e.isFile() && e.name.endsWith(FILE_EXTENSION))))
-    .map((e) => ({ name: e.name, path: path.join(folder, e.name), kind: e.isDirectory() ? ('folder' as const) : ('plan' as const) }))
+    .map((e) => ({
+      name: e.name,
+      path: path.join(folder, e.name),
+      kind: e.isDirectory() ? ('folder' as const) : ('plan' as const),
+    }))
     .sort((a, b) => (a.kind === b.kind ? a.name.localeCompare(b.name) : a.kind === 'folder' ? -1 : 1));
   const parent = path.dirname(folder);
   return { path: folder, parent: parent === folder ? null : parent, entries: listed };

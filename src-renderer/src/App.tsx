@@ -93,14 +93,14 @@ export function App() {
   const actions = {
     newPlan: () => {
       if (confirmDiscard()) {
-        doc.load(newEmptyProject(), null, { saved: false });
+        doc.load(newEmptyProject(), null);
         report('A new, empty plan. Add populations to start.');
       }
     },
     newFromDemo: () => {
       if (!confirmDiscard()) return;
       call('loadDemo', { which: 'continuous' }).then((demo) => {
-        doc.load(demo.project, null, { saved: false });
+        doc.load(demo.project, null);
         report('A new plan from the demo consortium (fictional). Save it to keep it.');
       }, fail('The demo could not be loaded'));
     },

@@ -5,7 +5,10 @@ import { electronBinary } from '../../scripts/electron-runtime.mjs';
 const runtime = electronBinary();
 
 test('the desktop window opens on the demo plan (needs the Electron runtime)', async () => {
-  test.skip(!runtime.available, `Skipped: ${runtime.reason ?? ''}. The Electron runtime cannot be downloaded on offline hosts; the same UI and handlers are tested in Chromium through the loopback host.`);
+  test.skip(
+    !runtime.available,
+    `Skipped: ${runtime.reason ?? ''}. The Electron runtime cannot be downloaded on offline hosts; the same UI and handlers are tested in Chromium through the loopback host.`,
+  );
   const app = await electron.launch({ executablePath: runtime.binary, args: [REPO_ROOT] });
   const window = await app.firstWindow();
   await expect(window.getByRole('heading', { level: 1, name: 'Plumbline' })).toBeVisible();
