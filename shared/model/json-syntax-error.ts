@@ -40,7 +40,7 @@ function scanString(text: string, start: number): Step {
   while (i < text.length) {
     const c = text.charCodeAt(i);
     if (c === 0x22) return { next: i + 1 };
-    if (c < 0x20) return { error: i, expected: 'a closing \'"\' (control characters must be escaped)' };
+    if (c < 0x20) return { error: i, expected: "a closing '\"' (control characters must be escaped)" };
     if (c === 0x5c) {
       const e = text.charCodeAt(i + 1);
       if (e === 0x75) {
@@ -59,7 +59,7 @@ function scanString(text: string, start: number): Step {
     }
     i += 1;
   }
-  return { error: text.length, expected: 'a closing \'"\'' };
+  return { error: text.length, expected: "a closing '\"'" };
 }
 
 function scanDigits(text: string, start: number, what: string): Step {

@@ -95,7 +95,10 @@ export function migratePlan(
     if (step === undefined) {
       return {
         ok: false,
-        error: { code: 'no-migration', message: `There is no way to bring a plan of schema ${version} up to schema ${version + 1}.` },
+        error: {
+          code: 'no-migration',
+          message: `There is no way to bring a plan of schema ${version} up to schema ${version + 1}.`,
+        },
       };
     }
     let next: unknown;
@@ -111,7 +114,10 @@ export function migratePlan(
     if (!isPlainObject(next)) {
       return {
         ok: false,
-        error: { code: 'migration-failed', message: `Updating the plan from schema ${version} to ${version + 1} did not produce a plan.` },
+        error: {
+          code: 'migration-failed',
+          message: `Updating the plan from schema ${version} to ${version + 1} did not produce a plan.`,
+        },
       };
     }
     current = { ...next, schemaVersion: version + 1 };

@@ -85,11 +85,9 @@ export function parsePlanValue(value: unknown, options: PlanParseOptions = {}): 
   const data = value as PlanData;
   if (data['format'] !== FORMAT_TAG) {
     const found = data['format'] === undefined ? 'has no "format" field' : `has "format": ${JSON.stringify(data['format'])}`;
-    return failure(
-      'not-a-plan',
-      `This is not a Plumbline plan: it ${found}, and a plan has "format": "${FORMAT_TAG}".`,
-      [{ path: 'format', message: `must be "${FORMAT_TAG}"` }],
-    );
+    return failure('not-a-plan', `This is not a Plumbline plan: it ${found}, and a plan has "format": "${FORMAT_TAG}".`, [
+      { path: 'format', message: `must be "${FORMAT_TAG}"` },
+    ]);
   }
   const version = data['schemaVersion'];
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 0) {
@@ -138,7 +136,10 @@ export function parsePlanValue(value: unknown, options: PlanParseOptions = {}): 
 export function parsePlanText(text: string, options: PlanParseOptions = {}): PlanParseResult {
   const body = text.startsWith('\uFEFF') ? text.slice(1) : text;
   if (body.trim() === '') {
-    return failure('empty', body === '' ? 'The file is empty: it holds no plan.' : 'The file holds only blank space: it holds no plan.');
+    return failure(
+      'empty',
+      body === '' ? 'The file is empty: it holds no plan.' : 'The file holds only blank space: it holds no plan.',
+    );
   }
   let value: unknown;
   try {

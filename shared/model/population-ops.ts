@@ -54,11 +54,17 @@ export function copyName(taken: ReadonlySet<string>, name: string): string {
 function checked(project: Project): PopulationOpResult<Project> {
   const result = checkProject(project);
   if (result.ok) return { ok: true, value: result.project };
-  return { ok: false, error: { code: 'invalid', message: `The result would not be a valid plan:\n${listProblems(result.problems)}` } };
+  return {
+    ok: false,
+    error: { code: 'invalid', message: `The result would not be a valid plan:\n${listProblems(result.problems)}` },
+  };
 }
 
 function notFound(project: Project, populationId: string): { ok: false; error: { code: 'no-such-population'; message: string } } {
-  return { ok: false, error: { code: 'no-such-population', message: `The plan "${project.name}" has no population with id "${populationId}".` } };
+  return {
+    ok: false,
+    error: { code: 'no-such-population', message: `The plan "${project.name}" has no population with id "${populationId}".` },
+  };
 }
 
 /**

@@ -72,7 +72,14 @@ export async function cleanLeftoverTemps(dir: string, bases?: ReadonlySet<string
       const info = await stat(full).catch(() => null);
       abandoned = info !== null && Date.now() - info.mtimeMs > ABANDONED_AFTER_MS;
     }
-    if (abandoned && (await unlink(full).then(() => true, () => false))) removed += 1;
+    if (
+      abandoned &&
+      (await unlink(full).then(
+        () => true,
+        () => false,
+      ))
+    )
+      removed += 1;
   }
   return removed;
 }
@@ -186,7 +193,11 @@ export function writeFileAtomic(
   return oneAtATime(queueKey(file), () => writeNow(file, data, options));
 }
 
-async function writeNow(target: string, data: string | Uint8Array, options: AtomicWriteOptions): Promise<StoreResult<AtomicWriteOutcome>> {
+async function writeNow(
+  target: string,
+  data: string | Uint8Array,
+  options: AtomicWriteOptions,
+): Promise<StoreResult<AtomicWriteOutcome>> {
   const action = options.action ?? 'save';
   const dir = path.dirname(target);
   const bases = new Set([path.basename(target)]);

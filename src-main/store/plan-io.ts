@@ -35,7 +35,10 @@ const utf8 = new TextDecoder('utf-8', { fatal: true });
 /** The file's bytes as text; plans are UTF-8 (a byte-order mark is allowed and dropped later). */
 function decode(bytes: Uint8Array): StoreResult<string> {
   if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    return failed('unreadable-json', 'The file is saved as UTF-16 text; Plumbline plans are UTF-8. It may have been re-saved by another program.');
+    return failed(
+      'unreadable-json',
+      'The file is saved as UTF-16 text; Plumbline plans are UTF-8. It may have been re-saved by another program.',
+    );
   }
   try {
     return done(utf8.decode(bytes));
@@ -75,7 +78,10 @@ export async function readPlanFile(planPath: string): Promise<StoreResult<ReadPl
     return fileFailure(e, 'open', file);
   }
   if (size > MAX_PLAN_BYTES) {
-    return failed('too-large', `Could not open "${file}": at ${Math.round(size / 1_048_576)} MB it is far larger than any plan (the limit is ${MAX_PLAN_BYTES / 1_048_576} MB).`);
+    return failed(
+      'too-large',
+      `Could not open "${file}": at ${Math.round(size / 1_048_576)} MB it is far larger than any plan (the limit is ${MAX_PLAN_BYTES / 1_048_576} MB).`,
+    );
   }
   let bytes: Buffer;
   try {
@@ -110,7 +116,10 @@ export async function writePlanFile(planPath: string, project: unknown): Promise
   const file = checked.value;
   const prepared = preparePlanText(project);
   if (!prepared.ok) return failed('invalid', prepared.error.message, prepared.error.problems);
-  const written = await writeFileAtomic(file, prepared.value.text, { backupPath: backupPathFor(file), action: 'save the plan to' });
+  const written = await writeFileAtomic(file, prepared.value.text, {
+    backupPath: backupPathFor(file),
+    action: 'save the plan to',
+  });
   if (!written.ok) return written;
   return done({
     path: file,

@@ -85,7 +85,11 @@ export class ProjectStore {
 
   /** Takes (or checks) the lock of `planPath` for a document. */
   lock(planPath: string, documentId: string, options: LockOptions = {}): Promise<StoreResult<LockState>> {
-    return acquireLock(planPath, { instanceId: this.instanceId, documentId }, { takeOver: options.takeOverLock === true, now: this.now() });
+    return acquireLock(
+      planPath,
+      { instanceId: this.instanceId, documentId },
+      { takeOver: options.takeOverLock === true, now: this.now() },
+    );
   }
 
   /**
@@ -178,7 +182,11 @@ export class ProjectStore {
   }
 
   /** Writes the document's unsaved state to its recovery file (a valid plan only). */
-  autosave(documentId: string, originalPath: string | null, project: Project): Promise<StoreResult<{ readonly path: string; readonly savedAt: string }>> {
+  autosave(
+    documentId: string,
+    originalPath: string | null,
+    project: Project,
+  ): Promise<StoreResult<{ readonly path: string; readonly savedAt: string }>> {
     return writeRecovery(this.userDataDir, { documentId, originalPath, project }, { instanceId: this.instanceId }, this.now());
   }
 

@@ -135,7 +135,8 @@ async function readEnvelope(file: string): Promise<StoreResult<Envelope>> {
   try {
     text = await readFile(file, 'utf8');
   } catch (e) {
-    if (errnoOf(e) === 'ENOENT') return failed('no-recovery', `There is no unsaved work for this document (no "${path.basename(file)}").`);
+    if (errnoOf(e) === 'ENOENT')
+      return failed('no-recovery', `There is no unsaved work for this document (no "${path.basename(file)}").`);
     return fileFailure(e, 'read the recovery file', file);
   }
   let value: unknown;
@@ -145,7 +146,8 @@ async function readEnvelope(file: string): Promise<StoreResult<Envelope>> {
     return failed('unreadable-json', `The recovery file "${file}" is damaged: it is not readable JSON.`);
   }
   const parsed = envelopeSchema.safeParse(value);
-  if (!parsed.success) return failed('not-a-plan', `The recovery file "${file}" is damaged: it is not a Plumbline recovery file.`);
+  if (!parsed.success)
+    return failed('not-a-plan', `The recovery file "${file}" is damaged: it is not a Plumbline recovery file.`);
   return done(parsed.data);
 }
 
@@ -162,7 +164,10 @@ async function exists(file: string | null): Promise<boolean> {
  * `problem` set) rather than hidden, so they can be discarded. Abandoned temporary files of an
  * interrupted autosave are removed.
  */
-export async function listRecovery(userDataDir: string, self: RecoveryWriter): Promise<StoreResult<readonly RecoverableDocument[]>> {
+export async function listRecovery(
+  userDataDir: string,
+  self: RecoveryWriter,
+): Promise<StoreResult<readonly RecoverableDocument[]>> {
   const dir = recoveryDir(userDataDir);
   let names: string[];
   try {
@@ -194,7 +199,8 @@ export async function listRecovery(userDataDir: string, self: RecoveryWriter): P
     }
     const { writer } = envelope.value;
     const inUse =
-      writer.hostname === myHost && (writer.instanceId === self.instanceId || (writer.pid !== process.pid && isProcessAlive(writer.pid)));
+      writer.hostname === myHost &&
+      (writer.instanceId === self.instanceId || (writer.pid !== process.pid && isProcessAlive(writer.pid)));
     found.push({
       documentId,
       originalPath: envelope.value.originalPath,

@@ -6,15 +6,7 @@ import type { FieldProblem } from '@shared/model/validation-message';
 import type { PlanFileErrorCode } from '@shared/model/plan-file';
 
 export type FileErrorCode =
-  | 'not-found'
-  | 'permission-denied'
-  | 'read-only'
-  | 'disk-full'
-  | 'is-directory'
-  | 'busy'
-  | 'too-large'
-  | 'bad-path'
-  | 'io-error';
+  'not-found' | 'permission-denied' | 'read-only' | 'disk-full' | 'is-directory' | 'busy' | 'too-large' | 'bad-path' | 'io-error';
 
 export type StoreErrorCode =
   | FileErrorCode
@@ -36,7 +28,11 @@ export type StoreResult<T> = { readonly ok: true; readonly value: T } | { readon
 
 export const done = <T>(value: T): StoreResult<T> => ({ ok: true, value });
 
-export const failed = (code: StoreErrorCode, message: string, problems?: readonly FieldProblem[]): { ok: false; error: StoreError } => ({
+export const failed = (
+  code: StoreErrorCode,
+  message: string,
+  problems?: readonly FieldProblem[],
+): { ok: false; error: StoreError } => ({
   ok: false,
   error: problems === undefined ? { code, message } : { code, message, problems },
 });
@@ -67,5 +63,8 @@ export function fileFailure(e: unknown, action: string, filePath: string): { ok:
   const errno = errnoOf(e);
   const known = errno === undefined ? undefined : ERRNO[errno];
   const reason = known?.words ?? (e instanceof Error ? e.message : String(e));
-  return failed(known?.code ?? 'io-error', `Could not ${action} "${filePath}": ${reason}${errno === undefined ? '' : ` (${errno})`}.`);
+  return failed(
+    known?.code ?? 'io-error',
+    `Could not ${action} "${filePath}": ${reason}${errno === undefined ? '' : ` (${errno})`}.`,
+  );
 }

@@ -14,7 +14,17 @@ function engineAccepts(text: string): boolean {
 
 describe('locateJsonSyntaxError', () => {
   it('returns null for valid JSON of every kind', () => {
-    for (const text of ['{}', '[]', ' 0 ', '-0.5e+10', '"a\\u00e9\\n"', 'true', 'null', '{"a":[1,{"b":false}]}', '\n[\r\n1\t]\n']) {
+    for (const text of [
+      '{}',
+      '[]',
+      ' 0 ',
+      '-0.5e+10',
+      '"a\\u00e9\\n"',
+      'true',
+      'null',
+      '{"a":[1,{"b":false}]}',
+      '\n[\r\n1\t]\n',
+    ]) {
       expect(locateJsonSyntaxError(text), text).toBeNull();
     }
   });
@@ -26,11 +36,11 @@ describe('locateJsonSyntaxError', () => {
     ['{"a": tru}', 1, 10, "'}'", '"true"'],
     ['{"a": 01}', 1, 8, "'1'", "',' or '}'"],
     ['{"a": 1.}', 1, 9, "'}'", "a digit after '.'"],
-    ['{"a": "x', 1, 9, 'the end of the text', 'a closing \'"\''],
+    ['{"a": "x', 1, 9, 'the end of the text', "a closing '\"'"],
     ['{"é": "😀", x', 1, 12, "'x'", 'a property name in double quotes'],
     ['', 1, 1, 'the end of the text', 'a value'],
     ['{} {}', 1, 4, "'{'", 'the end of the text'],
-    ['["a\tb"]', 1, 4, 'the control character U+0009', 'a closing \'"\' (control characters must be escaped)'],
+    ['["a\tb"]', 1, 4, 'the control character U+0009', "a closing '\"' (control characters must be escaped)"],
     ['["\\x"]', 1, 4, "'x'", 'a valid escape (\\" \\\\ \\/ \\b \\f \\n \\r \\t or \\u)'],
   ])('%j breaks at line %i, column %i', (text, line, column, found, expected) => {
     expect(engineAccepts(text)).toBe(false);
@@ -49,7 +59,12 @@ describe('locateJsonSyntaxError', () => {
 
   it('agrees with JSON.parse on random valid JSON and on damaged copies of it', () => {
     const damaged = fc
-      .tuple(fc.json(), fc.nat(), fc.constantFrom('delete', 'insert', 'truncate'), fc.constantFrom(...',:{}[]"\\ 0-.eE+tfnu\n'.split('')))
+      .tuple(
+        fc.json(),
+        fc.nat(),
+        fc.constantFrom('delete', 'insert', 'truncate'),
+        fc.constantFrom(...',:{}[]"\\ 0-.eE+tfnu\n'.split('')),
+      )
       .map(([text, at, how, ch]) => {
         const k = text.length === 0 ? 0 : at % text.length;
         if (how === 'delete') return text.slice(0, k) + text.slice(k + 1);

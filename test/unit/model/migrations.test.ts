@@ -30,7 +30,9 @@ describe('checkMigrationTable', () => {
     const step = (from: number): Migration => ({ from, summary: `step ${from}`, migrate: (p) => p });
     expect(checkMigrationTable([step(0), step(2)], 3)).toEqual(['no migration from version 1 to 2']);
     expect(checkMigrationTable([step(1), step(1), step(2)], 3)).toEqual(['two migrations start from version 1']);
-    expect(checkMigrationTable([step(3)], 3)).toEqual(['a migration starts from version 3, which is not a whole number from 0 to 2']);
+    expect(checkMigrationTable([step(3)], 3)).toEqual([
+      'a migration starts from version 3, which is not a whole number from 0 to 2',
+    ]);
     expect(checkMigrationTable([step(0.5)], 3)).toHaveLength(1);
     // a chain that stops short of the current version leaves files of its last version unreadable
     expect(checkMigrationTable([step(0)], 3)).toEqual(['no migration from version 1 to 2', 'no migration from version 2 to 3']);
@@ -94,11 +96,18 @@ describe('migratePlan', () => {
       error: { code: 'migration-failed', message: 'Updating the plan from schema 0 to 1 failed: field x missing' },
     });
     const returnsList: Migration = { from: 0, summary: 'wrong', migrate: () => [] as unknown as PlanData };
-    expect(migratePlan(v0, { from: 0, to: 1, migrations: [returnsList] })).toMatchObject({ ok: false, error: { code: 'migration-failed' } });
+    expect(migratePlan(v0, { from: 0, to: 1, migrations: [returnsList] })).toMatchObject({
+      ok: false,
+      error: { code: 'migration-failed' },
+    });
   });
 
   it('fails with "bad-table" instead of running a broken table', () => {
-    const result = migratePlan(v0, { from: 0, to: 3, migrations: [history[0], history[0], history[2]].filter((m) => m !== undefined) });
+    const result = migratePlan(v0, {
+      from: 0,
+      to: 3,
+      migrations: [history[0], history[0], history[2]].filter((m) => m !== undefined),
+    });
     expect(result).toMatchObject({ ok: false, error: { code: 'bad-table' } });
   });
 });
@@ -111,7 +120,10 @@ describe('plan files of every readable version', () => {
     expect(versions).toEqual(Array.from({ length: SCHEMA_VERSION - oldest + 1 }, (_, i) => oldest + i));
     for (const version of versions) {
       const result = parsePlanText(await readFile(new URL(`./fixtures/schema-${version}.plumb`, import.meta.url), 'utf8'));
-      expect(result, `schema-${version}.plumb`).toMatchObject({ ok: true, migratedFrom: version < SCHEMA_VERSION ? version : null });
+      expect(result, `schema-${version}.plumb`).toMatchObject({
+        ok: true,
+        migratedFrom: version < SCHEMA_VERSION ? version : null,
+      });
     }
   });
 });

@@ -64,7 +64,9 @@ describe('parsePlanText: refusals', () => {
   it('refuses a wrong or missing format tag as "not-a-plan", quoting the tag found', () => {
     const wrong = errorOf(parsePlanText(JSON.stringify({ ...minimal, format: 'spreadsheet' })));
     expect(wrong).toMatchObject({ code: 'not-a-plan', problems: [{ path: 'format', message: 'must be "plumbline-plan"' }] });
-    expect(wrong.message).toBe('This is not a Plumbline plan: it has "format": "spreadsheet", and a plan has "format": "plumbline-plan".');
+    expect(wrong.message).toBe(
+      'This is not a Plumbline plan: it has "format": "spreadsheet", and a plan has "format": "plumbline-plan".',
+    );
     const { format: _omitted, ...untagged } = minimal;
     expect(errorOf(parsePlanText(JSON.stringify(untagged))).message).toContain('it has no "format" field');
   });
@@ -93,7 +95,10 @@ describe('parsePlanText: refusals', () => {
   });
 
   it('lists each schema violation with the path to the field', async () => {
-    const plan = JSON.parse(await fixture('schema-1.plumb')) as { populations: { anticipated: Record<string, unknown> }[]; name: string };
+    const plan = JSON.parse(await fixture('schema-1.plumb')) as {
+      populations: { anticipated: Record<string, unknown> }[];
+      name: string;
+    };
     plan.name = '   ';
     const second = plan.populations[1];
     if (second === undefined) throw new Error('fixture has two populations');
@@ -110,7 +115,16 @@ describe('parsePlanText: refusals', () => {
   });
 
   it('cuts a problem message short when the offending value is long', () => {
-    const populations = [{ id: 'a', name: 'A', outcome: 'continuous', notes: 'x'.repeat(30_000), anticipated: { rSquared: 0.3, outcomeVariance: 1 }, precision: { citl: { width: 1 } } }];
+    const populations = [
+      {
+        id: 'a',
+        name: 'A',
+        outcome: 'continuous',
+        notes: 'x'.repeat(30_000),
+        anticipated: { rSquared: 0.3, outcomeVariance: 1 },
+        precision: { citl: { width: 1 } },
+      },
+    ];
     const error = errorOf(parsePlanText(JSON.stringify({ ...minimal, populations })));
     expect(error.problems).toHaveLength(1);
     expect(error.problems[0]?.path).toBe('populations[0].notes');
@@ -163,7 +177,9 @@ describe('parsePlanText: acceptance', () => {
 
   it('reports problems found after migrating as problems of the migrated plan', () => {
     const table: Migration[] = [{ from: 0, summary: 'no change', migrate: (plan) => plan }];
-    const error = errorOf(parsePlanValue({ format: FORMAT_TAG, schemaVersion: 0, outcome: 'continuous', populations: [] }, { migrations: table }));
+    const error = errorOf(
+      parsePlanValue({ format: FORMAT_TAG, schemaVersion: 0, outcome: 'continuous', populations: [] }, { migrations: table }),
+    );
     expect(error.code).toBe('invalid');
     expect(error.message).toMatch(/^The plan has 1 problem after updating it from schema 0:\nname: /);
   });
@@ -179,16 +195,28 @@ describe('parsePlanText: acceptance', () => {
       },
     ];
     const error = errorOf(parsePlanValue({ ...minimal, schemaVersion: 0 }, { migrations: table }));
-    expect(error).toEqual({ code: 'invalid', message: 'Updating the plan from schema 0 to 1 failed: populations missing', problems: [] });
+    expect(error).toEqual({
+      code: 'invalid',
+      message: 'Updating the plan from schema 0 to 1 failed: populations missing',
+      problems: [],
+    });
   });
 });
 
 describe('serialisePlan', () => {
   it('writes keys in schema order whatever order the object was built in, two-space indented, with a final newline', () => {
-    const built = { populations: [], name: 'Plan', outcome: 'continuous', schemaVersion: SCHEMA_VERSION, format: FORMAT_TAG } as const;
+    const built = {
+      populations: [],
+      name: 'Plan',
+      outcome: 'continuous',
+      schemaVersion: SCHEMA_VERSION,
+      format: FORMAT_TAG,
+    } as const;
     const text = serialisePlan(projectSchema.parse(built));
     expect(text.endsWith('}\n')).toBe(true);
-    expect(text.startsWith(`{\n  "format": "${FORMAT_TAG}",\n  "schemaVersion": ${SCHEMA_VERSION},\n  "name": "Plan",\n`)).toBe(true);
+    expect(text.startsWith(`{\n  "format": "${FORMAT_TAG}",\n  "schemaVersion": ${SCHEMA_VERSION},\n  "name": "Plan",\n`)).toBe(
+      true,
+    );
     expect(text).toBe(serialisePlan(projectSchema.parse(minimal)));
   });
 

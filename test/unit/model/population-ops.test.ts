@@ -43,7 +43,11 @@ describe('duplicatePopulation', () => {
     const before = structuredClone(plan);
     const result = duplicatePopulation(plan, 'harbour-general');
     if (!result.ok) throw new Error(result.error.message);
-    expect(result.value.project.populations.map((p) => p.id)).toEqual(['harbour-general', 'harbour-general-2', 'lakeside-registry']);
+    expect(result.value.project.populations.map((p) => p.id)).toEqual([
+      'harbour-general',
+      'harbour-general-2',
+      'lakeside-registry',
+    ]);
     expect(result.value.population).toMatchObject({ id: 'harbour-general-2', name: 'Harbour General, Études cliniques (copy)' });
     const { id: _a, name: _b, ...copyRest } = result.value.population;
     const { id: _c, name: _d, ...originalRest } = plan.populations[0] ?? {};
@@ -60,7 +64,10 @@ describe('duplicatePopulation', () => {
   it('fails with "no-such-population" for an unknown id', async () => {
     expect(duplicatePopulation(await fixturePlan(), 'nowhere')).toEqual({
       ok: false,
-      error: { code: 'no-such-population', message: 'The plan "Northwind wound-healing score: external validation" has no population with id "nowhere".' },
+      error: {
+        code: 'no-such-population',
+        message: 'The plan "Northwind wound-healing score: external validation" has no population with id "nowhere".',
+      },
     });
   });
 });
@@ -88,7 +95,10 @@ describe('importPopulations', () => {
   });
 
   it('fails with "no-such-population" for an id the source does not have', async () => {
-    expect(importPopulations(newEmptyProject(), await fixturePlan(), ['nowhere'])).toMatchObject({ ok: false, error: { code: 'no-such-population' } });
+    expect(importPopulations(newEmptyProject(), await fixturePlan(), ['nowhere'])).toMatchObject({
+      ok: false,
+      error: { code: 'no-such-population' },
+    });
   });
 
   it('fails with "outcome-mismatch" when the outcome types differ', async () => {
@@ -99,7 +109,8 @@ describe('importPopulations', () => {
       ok: false,
       error: {
         code: 'outcome-mismatch',
-        message: 'Cannot import: "Untitled plan" plans for a continuous outcome, and the populations of "Northwind wound-healing score: external validation" are for a binary outcome.',
+        message:
+          'Cannot import: "Untitled plan" plans for a continuous outcome, and the populations of "Northwind wound-healing score: external validation" are for a binary outcome.',
       },
     });
   });
@@ -145,6 +156,11 @@ describe('newEmptyProject', () => {
   it('is a valid plan with no populations and the schema defaults', () => {
     const project = newEmptyProject();
     expect(projectSchema.safeParse(project).success).toBe(true);
-    expect(project).toMatchObject({ name: 'Untitled plan', outcome: 'continuous', populations: [], updating: { enabled: false } });
+    expect(project).toMatchObject({
+      name: 'Untitled plan',
+      outcome: 'continuous',
+      populations: [],
+      updating: { enabled: false },
+    });
   });
 });

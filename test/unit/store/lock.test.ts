@@ -64,17 +64,23 @@ describe('acquireLock', () => {
     const result = await acquireLock(plan, me);
     expect(result).toMatchObject({
       ok: true,
-      value: { status: 'held-elsewhere', warning: { kind: 'another-window', message: 'This plan is already open in another Plumbline window.' } },
+      value: {
+        status: 'held-elsewhere',
+        warning: { kind: 'another-window', message: 'This plan is already open in another Plumbline window.' },
+      },
     });
   });
 
   it('warns "another-instance" when a live process on this computer holds it', async () => {
     await acquireLock(plan, { instanceId: 'instance-other', documentId: 'doc-x', pid: livePid });
     const result = await acquireLock(plan, me);
-    if (!result.ok || result.value.status !== 'held-elsewhere') throw new Error(`expected a warning, got ${JSON.stringify(result)}`);
+    if (!result.ok || result.value.status !== 'held-elsewhere')
+      throw new Error(`expected a warning, got ${JSON.stringify(result)}`);
     expect(result.value.warning.kind).toBe('another-instance');
     expect(result.value.warning.holder).toMatchObject({ pid: livePid, instanceId: 'instance-other' });
-    expect(result.value.warning.message).toMatch(new RegExp(`^This plan is already open in another Plumbline on this computer \\(process ${livePid}\\) since `));
+    expect(result.value.warning.message).toMatch(
+      new RegExp(`^This plan is already open in another Plumbline on this computer \\(process ${livePid}\\) since `),
+    );
     // the holder's lock is untouched
     expect(await readLock(plan)).toMatchObject({ ok: true, value: { pid: livePid, instanceId: 'instance-other' } });
   });
@@ -82,7 +88,10 @@ describe('acquireLock', () => {
   it('takes over the lock of a process that no longer runs', async () => {
     await acquireLock(plan, { instanceId: 'instance-crashed', documentId: 'doc-x', pid: deadPid });
     const result = await acquireLock(plan, me);
-    expect(result).toMatchObject({ ok: true, value: { status: 'took-over-stale', previous: { pid: deadPid, instanceId: 'instance-crashed' } } });
+    expect(result).toMatchObject({
+      ok: true,
+      value: { status: 'took-over-stale', previous: { pid: deadPid, instanceId: 'instance-crashed' } },
+    });
     expect(await readLock(plan)).toMatchObject({ ok: true, value: { pid: process.pid, instanceId: 'instance-me' } });
   });
 
@@ -94,10 +103,13 @@ describe('acquireLock', () => {
   it('warns "another-computer" for a holder on another host, whose process cannot be checked', async () => {
     await acquireLock(plan, { instanceId: 'instance-far', documentId: 'doc-x', pid: deadPid, hostname: 'ward-7-pc' });
     const result = await acquireLock(plan, me);
-    expect(result).toMatchObject({ ok: true, value: { status: 'held-elsewhere', warning: { kind: 'another-computer', holder: { hostname: 'ward-7-pc' } } } });
+    expect(result).toMatchObject({
+      ok: true,
+      value: { status: 'held-elsewhere', warning: { kind: 'another-computer', holder: { hostname: 'ward-7-pc' } } },
+    });
   });
 
-  it('takes over a live holder\'s lock when asked to, and says whose it was', async () => {
+  it("takes over a live holder's lock when asked to, and says whose it was", async () => {
     await acquireLock(plan, { instanceId: 'instance-other', documentId: 'doc-x', pid: livePid });
     const result = await acquireLock(plan, me, { takeOver: true });
     expect(result).toMatchObject({ ok: true, value: { status: 'took-over', previous: { pid: livePid } } });

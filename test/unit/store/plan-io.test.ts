@@ -37,21 +37,44 @@ async function snapshot(file: string): Promise<{ bytes: Buffer; mtimeMs: number;
 }
 
 const valid = serialisePlan(largePlan(3, 'T'));
-const plan = (fields: Record<string, unknown>): string => JSON.stringify({ ...(JSON.parse(valid) as object), ...fields }, null, 2);
+const plan = (fields: Record<string, unknown>): string =>
+  JSON.stringify({ ...(JSON.parse(valid) as object), ...fields }, null, 2);
 
 describe('readPlanFile refuses damaged files with a clear message and leaves them untouched', () => {
   const cases: [string, string | Buffer, string, RegExp][] = [
     ['empty', '', 'empty', /^The file is empty: it holds no plan\.$/],
     ['blank', '\n\n  \n', 'empty', /^The file holds only blank space/],
-    ['truncated', valid.slice(0, 700), 'unreadable-json', /^The file is not readable JSON at line \d+, column \d+: .* The file looks cut short\./],
-    ['corrupted', valid.replace('"populations": [', '"populations": [}'), 'unreadable-json', /^The file is not readable JSON at line \d+, column \d+: expected a value or '\]' but found '\}'/],
+    [
+      'truncated',
+      valid.slice(0, 700),
+      'unreadable-json',
+      /^The file is not readable JSON at line \d+, column \d+: .* The file looks cut short\./,
+    ],
+    [
+      'corrupted',
+      valid.replace('"populations": [', '"populations": [}'),
+      'unreadable-json',
+      /^The file is not readable JSON at line \d+, column \d+: expected a value or '\]' but found '\}'/,
+    ],
     ['binary garbage', Buffer.from([0x00, 0xff, 0xfe, 0x13, 0x80, 0x81]), 'unreadable-json', /^The file is not UTF-8 text/],
-    ['UTF-16', Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(valid, 'utf16le')]), 'unreadable-json', /^The file is saved as UTF-16 text/],
+    [
+      'UTF-16',
+      Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(valid, 'utf16le')]),
+      'unreadable-json',
+      /^The file is saved as UTF-16 text/,
+    ],
     ['zero-filled', Buffer.alloc(4096), 'unreadable-json', /found the control character U\+0000/],
     ['wrong type (array)', '[1, 2, 3]\n', 'not-a-plan', /^This is not a Plumbline plan: the file holds a list \(JSON array\)/],
     ['wrong type (text)', '"a plan"\n', 'not-a-plan', /^This is not a Plumbline plan: the file holds a piece of text/],
     ['wrong tag', plan({ format: 'other-tool' }), 'not-a-plan', /^This is not a Plumbline plan: it has "format": "other-tool"/],
-    ['future version', plan({ schemaVersion: SCHEMA_VERSION + 5 }), 'future-version', new RegExp(`newer version of Plumbline \\(schema ${SCHEMA_VERSION + 5}\\); this version reads up to schema ${SCHEMA_VERSION} — the file was not changed`)],
+    [
+      'future version',
+      plan({ schemaVersion: SCHEMA_VERSION + 5 }),
+      'future-version',
+      new RegExp(
+        `newer version of Plumbline \\(schema ${SCHEMA_VERSION + 5}\\); this version reads up to schema ${SCHEMA_VERSION} — the file was not changed`,
+      ),
+    ],
     ['schema violation', plan({ name: 7 }), 'invalid', /^The plan has 1 problem:\nname: /],
   ];
 
@@ -71,7 +94,9 @@ describe('readPlanFile refuses damaged files with a clear message and leaves the
   it('names the field of each schema violation', async () => {
     await writeFile(target, plan({ name: 7 }));
     const result = await readPlanFile(target);
-    expect(!result.ok && result.error.problems).toEqual([{ path: 'name', message: 'Invalid input: expected string, received number (got 7)' }]);
+    expect(!result.ok && result.error.problems).toEqual([
+      { path: 'name', message: 'Invalid input: expected string, received number (got 7)' },
+    ]);
   });
 
   it('refuses a file far larger than any plan without reading it', async () => {
@@ -177,7 +202,7 @@ describe('leftover temporary files', () => {
     }
   });
 
-  it('removes those of dead writers and old ones, keeps live writers\', recent foreign ones and other files', async () => {
+  it("removes those of dead writers and old ones, keeps live writers', recent foreign ones and other files", async () => {
     const base = 'plan ü 1.plumb';
     const dead = `.${base}.${hostTag()}-${deadPid()}-aaaaaaaaaaaa.tmp`;
     const deadBackup = `.${base}.bak.${hostTag()}-${deadPid()}-bbbbbbbbbbbb.tmp`;
@@ -185,7 +210,8 @@ describe('leftover temporary files', () => {
     const foreignRecent = `.${base}.0badc0de-${process.pid}-dddddddddddd.tmp`;
     const foreignOld = `.${base}.0badc0de-${process.pid}-eeeeeeeeeeee.tmp`;
     const otherPlan = `.other.plumb.${hostTag()}-${deadPid()}-ffffffffffff.tmp`;
-    for (const name of [dead, deadBackup, live, foreignRecent, foreignOld, otherPlan, 'notes.txt']) await writeFile(path.join(folder, name), 'x');
+    for (const name of [dead, deadBackup, live, foreignRecent, foreignOld, otherPlan, 'notes.txt'])
+      await writeFile(path.join(folder, name), 'x');
     const old = new Date(Date.now() - 2 * 60 * 60 * 1000);
     await utimes(path.join(folder, foreignOld), old, old);
 
@@ -222,7 +248,9 @@ describe('writeFileAtomic', () => {
     if (!result.ok) throw new Error(result.error.message);
     expect(result.value.backupPath).toBeNull();
     expect(result.value.warnings).toHaveLength(1);
-    expect(result.value.warnings[0]).toMatch(/^Could not keep the previous version as ".*p\.plumb\.bak": .* The new version was saved; no backup of the old one was kept\.$/);
+    expect(result.value.warnings[0]).toMatch(
+      /^Could not keep the previous version as ".*p\.plumb\.bak": .* The new version was saved; no backup of the old one was kept\.$/,
+    );
     expect(await readFile(file, 'utf8')).toBe('new');
     expect((await readdir(folder)).sort()).toEqual(['p.plumb', 'p.plumb.bak']);
   });

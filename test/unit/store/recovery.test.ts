@@ -3,7 +3,14 @@ import { mkdtemp, readdir, rm, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { checkDocumentId, discardRecovery, listRecovery, readRecovery, recoveryDir, writeRecovery } from '../../../src-main/store/recovery';
+import {
+  checkDocumentId,
+  discardRecovery,
+  listRecovery,
+  readRecovery,
+  recoveryDir,
+  writeRecovery,
+} from '../../../src-main/store/recovery';
 import { largePlan } from './helpers/large-plan';
 
 let root = '';
@@ -25,19 +32,31 @@ const crashed = { instanceId: 'old-session', pid: 0 };
 const running = { instanceId: 'this-session' };
 
 describe('checkDocumentId', () => {
-  it.each([['abc-DEF_123', true], ['', false], ['../etc/passwd', false], ['a b', false], ['x'.repeat(65), false], [42, false]])(
-    '%j is accepted: %s',
-    (id, accepted) => {
-      expect(checkDocumentId(id).ok).toBe(accepted);
-    },
-  );
+  it.each([
+    ['abc-DEF_123', true],
+    ['', false],
+    ['../etc/passwd', false],
+    ['a b', false],
+    ['x'.repeat(65), false],
+    [42, false],
+  ])('%j is accepted: %s', (id, accepted) => {
+    expect(checkDocumentId(id).ok).toBe(accepted);
+  });
 });
 
 describe('recovery files', () => {
   it('are written, listed with the original path, time and plan name, and restored equal', async () => {
     const project = largePlan(3, 'R');
-    const saved = await writeRecovery(userData, { documentId: 'doc-1', originalPath: '/plans/ü 1.plumb', project }, { ...crashed, pid: deadPid }, new Date('2031-05-06T07:08:09Z'));
-    expect(saved).toEqual({ ok: true, value: { path: path.join(recoveryDir(userData), 'doc-1.recovery.json'), savedAt: '2031-05-06T07:08:09.000Z' } });
+    const saved = await writeRecovery(
+      userData,
+      { documentId: 'doc-1', originalPath: '/plans/ü 1.plumb', project },
+      { ...crashed, pid: deadPid },
+      new Date('2031-05-06T07:08:09Z'),
+    );
+    expect(saved).toEqual({
+      ok: true,
+      value: { path: path.join(recoveryDir(userData), 'doc-1.recovery.json'), savedAt: '2031-05-06T07:08:09.000Z' },
+    });
 
     const listed = await listRecovery(userData, running);
     expect(listed).toEqual({
@@ -56,7 +75,13 @@ describe('recovery files', () => {
     });
     expect(await readRecovery(userData, 'doc-1')).toEqual({
       ok: true,
-      value: { documentId: 'doc-1', originalPath: '/plans/ü 1.plumb', savedAt: '2031-05-06T07:08:09.000Z', project, migratedFrom: null },
+      value: {
+        documentId: 'doc-1',
+        originalPath: '/plans/ü 1.plumb',
+        savedAt: '2031-05-06T07:08:09.000Z',
+        project,
+        migratedFrom: null,
+      },
     });
   });
 
@@ -70,9 +95,24 @@ describe('recovery files', () => {
   });
 
   it('are listed newest first, and marked in use when written by this instance or a live one', async () => {
-    await writeRecovery(userData, { documentId: 'old', originalPath: null, project: largePlan(1, 'o') }, { instanceId: 'gone', pid: deadPid }, new Date('2031-01-01T00:00:00Z'));
-    await writeRecovery(userData, { documentId: 'mine', originalPath: null, project: largePlan(1, 'm') }, running, new Date('2031-03-01T00:00:00Z'));
-    await writeRecovery(userData, { documentId: 'live', originalPath: null, project: largePlan(1, 'l') }, { instanceId: 'other', pid: process.ppid }, new Date('2031-02-01T00:00:00Z'));
+    await writeRecovery(
+      userData,
+      { documentId: 'old', originalPath: null, project: largePlan(1, 'o') },
+      { instanceId: 'gone', pid: deadPid },
+      new Date('2031-01-01T00:00:00Z'),
+    );
+    await writeRecovery(
+      userData,
+      { documentId: 'mine', originalPath: null, project: largePlan(1, 'm') },
+      running,
+      new Date('2031-03-01T00:00:00Z'),
+    );
+    await writeRecovery(
+      userData,
+      { documentId: 'live', originalPath: null, project: largePlan(1, 'l') },
+      { instanceId: 'other', pid: process.ppid },
+      new Date('2031-02-01T00:00:00Z'),
+    );
     const listed = await listRecovery(userData, running);
     expect(listed.ok && listed.value.map((d) => [d.documentId, d.inUse])).toEqual([
       ['mine', true],
@@ -93,14 +133,22 @@ describe('recovery files', () => {
 
   it('refuse an invalid plan, keeping the last valid autosave', async () => {
     await writeRecovery(userData, { documentId: 'doc-1', originalPath: null, project: largePlan(1, 'a') }, crashed);
-    const bad = await writeRecovery(userData, { documentId: 'doc-1', originalPath: null, project: { ...largePlan(1, 'b'), name: '' } }, crashed);
+    const bad = await writeRecovery(
+      userData,
+      { documentId: 'doc-1', originalPath: null, project: { ...largePlan(1, 'b'), name: '' } },
+      crashed,
+    );
     expect(bad).toMatchObject({ ok: false, error: { code: 'invalid', problems: [{ path: 'name' }] } });
     const restored = await readRecovery(userData, 'doc-1');
     expect(restored.ok && restored.value.project.name).toBe(largePlan(1, 'a').name);
   });
 
   it('refuse a document id that could escape the recovery folder', async () => {
-    const result = await writeRecovery(userData, { documentId: '../../evil', originalPath: null, project: largePlan(1, 'a') }, crashed);
+    const result = await writeRecovery(
+      userData,
+      { documentId: '../../evil', originalPath: null, project: largePlan(1, 'a') },
+      crashed,
+    );
     expect(result).toMatchObject({ ok: false, error: { code: 'bad-document-id' } });
   });
 

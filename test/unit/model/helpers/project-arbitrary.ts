@@ -42,7 +42,10 @@ const ranges = fc.record(
     outcomeVariance: rangeOf(positive),
     rSquaredCitl: rangeOf(openUnit),
     rSquaredSlope: rangeOf(openUnit),
-    slope: rangeOf(slope),
+    // both ends on one side of 0: every slope between them must be admissible
+    slope: fc
+      .tuple(fc.boolean(), rangeOf(fc.double({ min: Number.MIN_VALUE, max: 100, noNaN: true })))
+      .map(([negative, r]) => (negative ? { low: -r.high, high: -r.low } : r)),
     outcomeMean: rangeOf(finite),
     outcomeSd: rangeOf(positive),
   },
@@ -55,10 +58,7 @@ const precision = fc.record(
     rSquared: fc.record({ width: positive }, { requiredKeys: [] }),
     citl: fc.record({ width: positive }),
     slope: fc.record({ width: positive }, { requiredKeys: [] }),
-    residualSd: fc.record(
-      { marginFactor: fc.double({ min: 1, max: 10, minExcluded: true, noNaN: true }) },
-      { requiredKeys: [] },
-    ),
+    residualSd: fc.record({ marginFactor: fc.double({ min: 1, max: 10, minExcluded: true, noNaN: true }) }, { requiredKeys: [] }),
   },
   { requiredKeys: ['citl'] },
 );
@@ -100,7 +100,10 @@ const isoDate = fc
 
 /** A valid plan in input form, with up to `maxPopulations` populations (unique ids). */
 export function projectInputArbitrary(maxPopulations = 5): fc.Arbitrary<ProjectInput> {
-  const ids = fc.uniqueArray(text(40).filter((s) => s.length > 0), { maxLength: maxPopulations });
+  const ids = fc.uniqueArray(
+    text(40).filter((s) => s.length > 0),
+    { maxLength: maxPopulations },
+  );
   return fc.record(
     {
       format: fc.constant(FORMAT_TAG),

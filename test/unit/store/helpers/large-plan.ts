@@ -16,7 +16,11 @@ export function largePlan(populations: number, variant: string): Project {
     name: `Synthetic consortium ${variant} (${populations} sites)`,
     description: `Generated for storage tests, variant ${variant}. Not a real study.`,
     outcome: 'continuous',
-    model: { name: 'Synthetic recovery-time score', reportedPerformance: 'R² 0.40 at development (invented)', reportedRSquared: 0.4 },
+    model: {
+      name: 'Synthetic recovery-time score',
+      reportedPerformance: 'R² 0.40 at development (invented)',
+      reportedRSquared: 0.4,
+    },
     updating: { enabled: true, predictorParameters: 12, anticipatedAdjustedRSquared: 0.3 },
     study: { startDate: '2032-01-15', windowMonths: 24 },
     populations: Array.from({ length: populations }, (_, i) => {
@@ -26,11 +30,22 @@ export function largePlan(populations: number, variant: string): Project {
         name: `Site ${i + 1} — Région ${variant} ü`,
         notes: `Variant ${variant}, site ${i + 1}. Accrual estimated from a made-up audit of ${100 + i} patients.`,
         outcome: 'continuous',
-        anticipated: { rSquared: r2, outcomeVariance: 50 + ((i * 7 + shift) % 60), slope: 1, outcomeMean: 20 + (i % 9), outcomeSd: 7.5 },
+        anticipated: {
+          rSquared: r2,
+          outcomeVariance: 50 + ((i * 7 + shift) % 60),
+          slope: 1,
+          outcomeMean: 20 + (i % 9),
+          outcomeSd: 7.5,
+        },
         ranges: { rSquared: { low: r2 - 0.1, high: r2 + 0.05 }, outcomeVariance: { low: 40, high: 130 } },
         sources: { rSquared: 'judgement', outcomeVariance: `pilot data, site ${i + 1}` },
         precision: { confidence: 0.95, rSquared: { width: 0.1 }, citl: { width: 1.5 + (i % 5) / 10 }, slope: { width: 0.2 } },
-        recruitment: { accrualPerMonth: 10 + (i % 30), eligibleFraction: 0.8, consentFraction: 0.75, missingOutcomeFraction: 0.05 },
+        recruitment: {
+          accrualPerMonth: 10 + (i % 30),
+          eligibleFraction: 0.8,
+          consentFraction: 0.75,
+          missingOutcomeFraction: 0.05,
+        },
       };
     }),
   });
