@@ -9,7 +9,7 @@ export default tseslint.config(
   ...tseslint.configs.recommendedTypeChecked,
   {
     languageOptions: {
-      parserOptions: { projectService: { allowDefaultProject: ['*.js', '*.mjs', 'scripts/*.mjs'] }, tsconfigRootDir: import.meta.dirname },
+      parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname },
     },
     rules: {
       '@typescript-eslint/no-explicit-any': 'error',
@@ -20,9 +20,19 @@ export default tseslint.config(
     },
   },
   {
-    files: ['**/*.mjs', '**/*.js'],
+    files: ['**/*.mjs', '**/*.js', '**/*.d.mts'],
     ...tseslint.configs.disableTypeChecked,
-    languageOptions: { globals: { process: 'readonly', console: 'readonly', URL: 'readonly' } },
+    languageOptions: {
+      parserOptions: { projectService: false, project: null },
+      globals: {
+        process: 'readonly',
+        console: 'readonly',
+        URL: 'readonly',
+        Buffer: 'readonly',
+        setTimeout: 'readonly',
+        clearTimeout: 'readonly',
+      },
+    },
   },
   {
     files: ['shared/engine/**/*.ts'],
@@ -31,9 +41,15 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['node:*', 'fs', 'path', 'os', 'child_process', 'worker_threads'], message: 'The engine is pure: no Node imports.' },
+            {
+              group: ['node:*', 'fs', 'path', 'os', 'child_process', 'worker_threads'],
+              message: 'The engine is pure: no Node imports.',
+            },
             { group: ['electron', 'electron/*'], message: 'The engine is pure: no Electron imports.' },
-            { group: ['react', 'react-dom', 'react/*', 'react-dom/*', 'recharts'], message: 'The engine is pure: no React imports.' },
+            {
+              group: ['react', 'react-dom', 'react/*', 'react-dom/*', 'recharts'],
+              message: 'The engine is pure: no React imports.',
+            },
           ],
         },
       ],

@@ -1,1 +1,2 @@
-export function electronBinary(): { available: true; binary: string; reason?: undefined } | { available: false; reason: string; binary?: undefined };
+export function electronBinary():
+  { available: true; binary: string; reason?: undefined } | { available: false; reason: string; binary?: undefined };

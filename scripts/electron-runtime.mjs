@@ -14,7 +14,8 @@ export function electronBinary() {
     return { available: false, reason: 'the electron package is not installed' };
   }
   const pathFile = path.join(dir, 'path.txt');
-  if (!existsSync(pathFile)) return { available: false, reason: 'the Electron runtime has not been downloaded (offline machine)' };
+  if (!existsSync(pathFile))
+    return { available: false, reason: 'the Electron runtime has not been downloaded (offline machine)' };
   const binary = path.join(dir, 'dist', readFileSync(pathFile, 'utf8').trim());
   if (!existsSync(binary)) return { available: false, reason: `the Electron runtime is missing at ${binary}` };
   return { available: true, binary };

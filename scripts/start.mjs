@@ -12,6 +12,8 @@ if (electron.available && process.env['PLUMBLINE_BROWSER'] !== '1') {
   const child = spawn(electron.binary, [root], { stdio: 'inherit' });
   child.on('exit', (code) => process.exit(code ?? 0));
 } else {
-  console.log(`No Electron runtime here (${electron.reason ?? 'browser mode requested'}); serving Plumbline to your browser instead.`);
+  console.log(
+    `No Electron runtime here (${electron.reason ?? 'browser mode requested'}); serving Plumbline to your browser instead.`,
+  );
   await import(path.join(root, 'out/main/loopback.js'));
 }

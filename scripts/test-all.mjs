@@ -37,7 +37,12 @@ check('lint', bin('eslint'), ['--max-warnings', '0', '.']);
 check('format', bin('prettier'), ['--check', '--log-level', 'warn', '.']);
 
 const unitReport = path.join(results, 'unit.json');
-const unitOk = step('unit tests (vitest)', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${unitReport}`]);
+const unitOk = step('unit tests (vitest)', bin('vitest'), [
+  'run',
+  '--reporter=default',
+  '--reporter=json',
+  `--outputFile.json=${unitReport}`,
+]);
 if (existsSync(unitReport)) {
   const report = JSON.parse(readFileSync(unitReport, 'utf8'));
   passed += report.numPassedTests;
@@ -52,7 +57,10 @@ if (existsSync(unitReport)) {
   failures.push('unit tests (no report)');
 }
 
-const built = step('build (electron-vite)', process.execPath, [path.join(root, 'node_modules/electron-vite/bin/electron-vite.js'), 'build']);
+const built = step('build (electron-vite)', process.execPath, [
+  path.join(root, 'node_modules/electron-vite/bin/electron-vite.js'),
+  'build',
+]);
 if (!built) {
   failed += 1;
   failures.push('build');

@@ -25,7 +25,8 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'DEV-BMJ': {
     key: 'DEV-BMJ',
-    citation: 'Calculating the sample size required for developing a clinical prediction model. BMJ 2020;368:m441. doi:10.1136/bmj.m441',
+    citation:
+      'Calculating the sample size required for developing a clinical prediction model. BMJ 2020;368:m441. doi:10.1136/bmj.m441',
   },
   'VAL-BIN': {
     key: 'VAL-BIN',
@@ -39,7 +40,8 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'VAL-SIM': {
     key: 'VAL-SIM',
-    citation: 'External validation sample size by simulation. J Clin Epidemiol 2021;135:79–89. doi:10.1016/j.jclinepi.2021.02.011',
+    citation:
+      'External validation sample size by simulation. J Clin Epidemiol 2021;135:79–89. doi:10.1016/j.jclinepi.2021.02.011',
   },
   'EVAL-BMJ': {
     key: 'EVAL-BMJ',
@@ -53,7 +55,8 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'NEWCOMBE-2006': {
     key: 'NEWCOMBE-2006',
-    citation: 'Newcombe RG. Confidence intervals for an effect size measure based on the Mann–Whitney statistic. Stat Med 2006;25(4):559–573',
+    citation:
+      'Newcombe RG. Confidence intervals for an effect size measure based on the Mann–Whitney statistic. Stat Med 2006;25(4):559–573',
   },
   'HANLEY-MCNEIL-1982': {
     key: 'HANLEY-MCNEIL-1982',
@@ -61,7 +64,8 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'WISHART-1931': {
     key: 'WISHART-1931',
-    citation: 'Wishart J. The mean and second moment coefficient of the multiple correlation coefficient. Biometrika 1931;22:353–361',
+    citation:
+      'Wishart J. The mean and second moment coefficient of the multiple correlation coefficient. Biometrika 1931;22:353–361',
   },
   'OLKIN-FINN-1995': {
     key: 'OLKIN-FINN-1995',
@@ -69,7 +73,8 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'HOZO-2005': {
     key: 'HOZO-2005',
-    citation: 'Hozo SP, Djulbegovic B, Hozo I. Estimating the mean and variance from the median, range, and the size of a sample. BMC Med Res Methodol 2005;5:13',
+    citation:
+      'Hozo SP, Djulbegovic B, Hozo I. Estimating the mean and variance from the median, range, and the size of a sample. BMC Med Res Methodol 2005;5:13',
   },
   'WAN-2014': {
     key: 'WAN-2014',
@@ -78,19 +83,23 @@ export const REFERENCES: Readonly<Record<ReferenceKey, Reference>> = {
   },
   'VICKERS-ELKIN-2006': {
     key: 'VICKERS-ELKIN-2006',
-    citation: 'Vickers AJ, Elkin EB. Decision curve analysis: a novel method for evaluating prediction models. Med Decis Making 2006;26:565–574',
+    citation:
+      'Vickers AJ, Elkin EB. Decision curve analysis: a novel method for evaluating prediction models. Med Decis Making 2006;26:565–574',
   },
   'MARSH-JANES-PEPE-2020': {
     key: 'MARSH-JANES-PEPE-2020',
-    citation: 'Marsh TL, Janes H, Pepe MS. Statistical inference for net benefit measures in biomarker validation studies. Biometrics 2020;76:843–852',
+    citation:
+      'Marsh TL, Janes H, Pepe MS. Statistical inference for net benefit measures in biomarker validation studies. Biometrics 2020;76:843–852',
   },
   'HIGGINS-THOMPSON-SPIEGELHALTER-2009': {
     key: 'HIGGINS-THOMPSON-SPIEGELHALTER-2009',
-    citation: 'Higgins JPT, Thompson SG, Spiegelhalter DJ. A re-evaluation of random-effects meta-analysis. J R Stat Soc A 2009;172(1):137–159. doi:10.1111/j.1467-985X.2008.00552.x',
+    citation:
+      'Higgins JPT, Thompson SG, Spiegelhalter DJ. A re-evaluation of random-effects meta-analysis. J R Stat Soc A 2009;172(1):137–159. doi:10.1111/j.1467-985X.2008.00552.x',
   },
   'DERSIMONIAN-LAIRD-1986': {
     key: 'DERSIMONIAN-LAIRD-1986',
-    citation: 'DerSimonian R, Laird N. Meta-analysis in clinical trials. Control Clin Trials 1986;7(3):177–188. doi:10.1016/0197-2456(86)90046-2',
+    citation:
+      'DerSimonian R, Laird N. Meta-analysis in clinical trials. Control Clin Trials 1986;7(3):177–188. doi:10.1016/0197-2456(86)90046-2',
   },
   'COMMON-PRACTICE': {
     key: 'COMMON-PRACTICE',

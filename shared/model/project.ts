@@ -17,8 +17,7 @@ export const openUnit = (what: string) =>
     .lt(1, { error: `${what} must be greater than 0 and less than 1` });
 
 /** Positive and finite (variances, widths, rates). */
-export const positive = (what: string) =>
-  finite(what).refine((v) => v > 0, { error: `${what} must be greater than 0` });
+export const positive = (what: string) => finite(what).refine((v) => v > 0, { error: `${what} must be greater than 0` });
 
 export const positiveInteger = (what: string) =>
   z
@@ -90,39 +89,51 @@ export const recruitmentSchema = z.object({
 });
 export type Recruitment = z.infer<typeof recruitmentSchema>;
 
-export const continuousPopulationSchema = z.object({
-  id: z.string().min(1, { error: 'population id must not be empty' }).max(100),
-  name: z
-    .string({ error: 'population name must be text' })
-    .trim()
-    .min(1, { error: 'population name must not be empty' })
-    .max(200, { error: 'population name must be at most 200 characters' }),
-  notes: z.string().max(20_000).default(''),
-  outcome: z.literal('continuous'),
-  anticipated: continuousAnticipatedSchema,
-  /** Optional low/high range per anticipated value, for the worst case and sensitivity curves. */
-  ranges: z.partialRecord(continuousAnticipatedSchema.keyof(), rangeSchema).default({}),
-  /** Free-text source of each assumption (a paper, a registry, a judgement). */
-  sources: z.record(z.string(), z.string().max(5_000)).default({}),
-  precision: continuousPrecisionSchema,
-  recruitment: recruitmentSchema.prefault({}),
-}).superRefine((population, ctx) => {
-  // Each end of a range must itself be an admissible anticipated value.
-  for (const [key, range] of Object.entries(population.ranges)) {
-    const field = continuousAnticipatedSchema.shape[key as ContinuousAnticipatedKey];
-    for (const end of ['low', 'high'] as const) {
-      const checked = field.safeParse(range[end]);
-      if (!checked.success) {
-        ctx.addIssue({ code: 'custom', path: ['ranges', key, end], input: range[end], message: `${end} end of the range: ${checked.error.issues[0]?.message ?? 'not allowed'}` });
+export const continuousPopulationSchema = z
+  .object({
+    id: z.string().min(1, { error: 'population id must not be empty' }).max(100),
+    name: z
+      .string({ error: 'population name must be text' })
+      .trim()
+      .min(1, { error: 'population name must not be empty' })
+      .max(200, { error: 'population name must be at most 200 characters' }),
+    notes: z.string().max(20_000).default(''),
+    outcome: z.literal('continuous'),
+    anticipated: continuousAnticipatedSchema,
+    /** Optional low/high range per anticipated value, for the worst case and sensitivity curves. */
+    ranges: z.partialRecord(continuousAnticipatedSchema.keyof(), rangeSchema).default({}),
+    /** Free-text source of each assumption (a paper, a registry, a judgement). */
+    sources: z.record(z.string(), z.string().max(5_000)).default({}),
+    precision: continuousPrecisionSchema,
+    recruitment: recruitmentSchema.prefault({}),
+  })
+  .superRefine((population, ctx) => {
+    // Each end of a range must itself be an admissible anticipated value.
+    for (const [key, range] of Object.entries(population.ranges)) {
+      const field = continuousAnticipatedSchema.shape[key as ContinuousAnticipatedKey];
+      for (const end of ['low', 'high'] as const) {
+        const checked = field.safeParse(range[end]);
+        if (!checked.success) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['ranges', key, end],
+            input: range[end],
+            message: `${end} end of the range: ${checked.error.issues[0]?.message ?? 'not allowed'}`,
+          });
+        }
       }
     }
-  }
-  // Every value between the ends is swept too, and a calibration slope of 0 is not admissible.
-  const slope = population.ranges.slope;
-  if (slope !== undefined && slope.low < 0 && slope.high > 0) {
-    ctx.addIssue({ code: 'custom', path: ['ranges', 'slope', 'high'], input: slope.high, message: 'the range of the calibration slope must not include 0 (give both ends the same sign)' });
-  }
-});
+    // Every value between the ends is swept too, and a calibration slope of 0 is not admissible.
+    const slope = population.ranges.slope;
+    if (slope !== undefined && slope.low < 0 && slope.high > 0) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['ranges', 'slope', 'high'],
+        input: slope.high,
+        message: 'the range of the calibration slope must not include 0 (give both ends the same sign)',
+      });
+    }
+  });
 export type ContinuousPopulation = z.infer<typeof continuousPopulationSchema>;
 
 export const populationSchema = continuousPopulationSchema;

@@ -79,7 +79,7 @@ export function comparisonRow(population: Population, project: Project, planner:
       ? null
       : monthlyEnrolment(recruitment.accrualPerMonth, recruitment.eligibleFraction, recruitment.consentFraction);
   let plan: PopulationPlanLike;
-  let worst: WorstCaseLike | null = null;
+  let worst: WorstCaseLike | null;
   try {
     plan = planner.plan(population, project);
     worst = planner.worstCase?.(population, project) ?? null;

@@ -134,11 +134,12 @@ export function App() {
     if (population === undefined) return;
     pick(
       'export',
-      (path) =>
+      (path) => {
         call('exportPopulation', { project: state.project, populationId, path }).then(
           (written) => report(`Exported ${population.name} to ${written.path}.`),
           fail('The population was not exported'),
-        ),
+        );
+      },
       `${population.name.replace(/[\\/:*?"<>|]+/g, ' ').trim() || 'population'}.plumb`,
     );
   };

@@ -13,11 +13,7 @@ export interface IntegerSearchResult {
  * Common practice (bisection on integers; METHODS.md 1.4 says search integers directly).
  * @example smallestIntegerMeeting((n) => n * n >= 50, 1, 1e6).n // 8
  */
-export function smallestIntegerMeeting(
-  meets: (n: number) => boolean,
-  lower: number,
-  upper: number,
-): IntegerSearchResult {
+export function smallestIntegerMeeting(meets: (n: number) => boolean, lower: number, upper: number): IntegerSearchResult {
   if (!Number.isInteger(lower) || !Number.isInteger(upper) || lower > upper) {
     return { n: null, converged: false };
   }

@@ -22,9 +22,12 @@ export function enrolmentTarget(n: number, missingOutcome: number): number {
  * @example monthlyEnrolment(100, 0.5, 0.8) // 40
  */
 export function monthlyEnrolment(accrualPerMonth: number, eligibleFraction: number, consentFraction: number): number {
-  if (!(accrualPerMonth > 0) || !Number.isFinite(accrualPerMonth)) throw new DomainError('accrual per month', accrualPerMonth, 'greater than 0');
-  if (!(eligibleFraction > 0 && eligibleFraction <= 1)) throw new DomainError('eligible fraction', eligibleFraction, 'greater than 0 and at most 1');
-  if (!(consentFraction > 0 && consentFraction <= 1)) throw new DomainError('consent fraction', consentFraction, 'greater than 0 and at most 1');
+  if (!(accrualPerMonth > 0) || !Number.isFinite(accrualPerMonth))
+    throw new DomainError('accrual per month', accrualPerMonth, 'greater than 0');
+  if (!(eligibleFraction > 0 && eligibleFraction <= 1))
+    throw new DomainError('eligible fraction', eligibleFraction, 'greater than 0 and at most 1');
+  if (!(consentFraction > 0 && consentFraction <= 1))
+    throw new DomainError('consent fraction', consentFraction, 'greater than 0 and at most 1');
   return accrualPerMonth * eligibleFraction * consentFraction;
 }
 

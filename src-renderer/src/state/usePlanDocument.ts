@@ -14,13 +14,13 @@ export interface PlanDocument {
   readonly state: DocumentState;
   readonly documentId: string;
   readonly dirty: boolean;
-  edit(label: string, change: (project: Project) => Project): void;
-  undo(): void;
-  redo(): void;
+  readonly edit: (label: string, change: (project: Project) => Project) => void;
+  readonly undo: () => void;
+  readonly redo: () => void;
   /** Replaces the document (open, new, restore); a new document id unless one is given. */
-  load(project: Project, path: string | null, options?: { saved?: boolean; documentId?: string }): void;
+  readonly load: (project: Project, path: string | null, options?: { saved?: boolean; documentId?: string }) => void;
   /** Records a successful save of the current value at `path` (undo history is kept). */
-  markSaved(path: string): void;
+  readonly markSaved: (path: string) => void;
 }
 
 /**

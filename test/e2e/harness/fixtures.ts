@@ -20,6 +20,8 @@ interface Fixtures {
 export const REPO_ROOT = path.resolve(import.meta.dirname, '..', '..', '..');
 
 export const test = base.extend<Fixtures>({
+  // Playwright requires an object pattern for a fixture without dependencies.
+  // eslint-disable-next-line no-empty-pattern
   folders: async ({}, use, testInfo) => {
     const folders = { userDataDir: testInfo.outputPath('user data'), documentsDir: testInfo.outputPath('Documents ü') };
     mkdirSync(folders.userDataDir, { recursive: true });

@@ -60,7 +60,10 @@ describe('dispatch refuses payloads that break their schema', () => {
     expect(missing).toMatchObject({ ok: false, error: { code: 'demo-missing' } });
     const demoDir = path.join(base, 'demo');
     await import('node:fs/promises').then((fs) => fs.mkdir(demoDir, { recursive: true }));
-    writeFileSync(path.join(demoDir, 'consortium-continuous.plumb'), JSON.stringify({ format: 'plumbline-plan', schemaVersion: 1, name: 'T', outcome: 'continuous', populations: [] }));
+    writeFileSync(
+      path.join(demoDir, 'consortium-continuous.plumb'),
+      JSON.stringify({ format: 'plumbline-plan', schemaVersion: 1, name: 'T', outcome: 'continuous', populations: [] }),
+    );
     const found = await dispatch('loadDemo', { which: 'continuous' }, ctx);
     expect(found).toMatchObject({ ok: true, value: { project: { name: 'T', populations: [] } } });
   });

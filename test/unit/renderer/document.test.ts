@@ -14,7 +14,11 @@ const project = {
   populations: [],
 } as Project;
 
-const rename = (name: string) => ({ type: 'edit' as const, label: `rename to ${name}`, change: (p: Project) => ({ ...p, name }) });
+const rename = (name: string) => ({
+  type: 'edit' as const,
+  label: `rename to ${name}`,
+  change: (p: Project) => ({ ...p, name }),
+});
 
 describe('document state: undo, redo and the unsaved mark', () => {
   it('an edit marks the plan unsaved; undo back to the saved value clears the mark', () => {

@@ -14,7 +14,10 @@ const population = continuousPopulationSchema.parse({
 describe('field edits are validated by the schema', () => {
   it('accepts a valid value and fills defaults', () => {
     const edit = applyFieldEdit(population, 'anticipated.rSquared', 0.7, 'Anticipated R²');
-    expect(edit).toMatchObject({ ok: true, population: { anticipated: { rSquared: 0.7 }, precision: { slope: { width: 0.2 } } } });
+    expect(edit).toMatchObject({
+      ok: true,
+      population: { anticipated: { rSquared: 0.7 }, precision: { slope: { width: 0.2 } } },
+    });
   });
 
   it('refuses an out-of-range value with a message naming the field and its range', () => {

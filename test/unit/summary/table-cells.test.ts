@@ -26,7 +26,14 @@ const row = (name: string, n: number): ComparisonRow => ({
 
 describe('table cells, TSV and CSV', () => {
   const rows = [row('Harbour, "East" site', 762), row('Line\nbreak', 190)];
-  const table = comparisonCells(rows, { populations: 2, enrolmentTarget: 847 + 212, longestMonths: 67.76, longestSite: 'Harbour', exceeding: 0, unplanned: 0 });
+  const table = comparisonCells(rows, {
+    populations: 2,
+    enrolmentTarget: 847 + 212,
+    longestMonths: 67.76,
+    longestSite: 'Harbour',
+    exceeding: 0,
+    unplanned: 0,
+  });
 
   it('keeps numbers as numbers and one column per criterion', () => {
     expect(table.header).toContain('R² (n)');
@@ -35,7 +42,7 @@ describe('table cells, TSV and CSV', () => {
   });
 
   it('CSV round-trips through a standard RFC 4180 parser (csv-parse)', () => {
-    const parsed = parse(toCsv(table), { relax_column_count: false }) as string[][];
+    const parsed: string[][] = parse(toCsv(table), { relax_column_count: false });
     expect(parsed).toHaveLength(4);
     expect(parsed[1]?.[1]).toBe('Harbour, "East" site');
     expect(parsed[2]?.[1]).toBe('Line\nbreak');
