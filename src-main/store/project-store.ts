@@ -161,24 +161,30 @@ export class ProjectStore {
     return released.ok ? saved : done({ ...saved.value, warnings: [...saved.value.warnings, released.error.message] });
   }
 
-  /** A clean close: releases the lock (if the document had a file) and removes its recovery file. */
+  /**
+   * A clean close: releases the lock (if the document had a file) and removes its recovery file.
+   * A lock that cannot be released (an unreadable folder, say) is reported as a warning and does
+   * not keep the recovery file; failing to remove the recovery file is an error.
+   */
   async close(
     planPath: string | null,
     documentId: string,
-  ): Promise<StoreResult<{ readonly lockReleased: boolean; readonly recoveryDiscarded: boolean }>> {
+  ): Promise<
+    StoreResult<{ readonly lockReleased: boolean; readonly recoveryDiscarded: boolean; readonly warnings: readonly string[] }>
+  > {
     const id = checkDocumentId(documentId);
     if (!id.ok) return id;
     let lockReleased = false;
+    const warnings: string[] = [];
     if (planPath !== null) {
       const file = checkPath(planPath, 'plan');
-      if (!file.ok) return file;
-      const released = await releaseLock(file.value, { instanceId: this.instanceId, documentId: id.value });
-      if (!released.ok) return released;
-      lockReleased = released.value;
+      const released = file.ok ? await releaseLock(file.value, { instanceId: this.instanceId, documentId: id.value }) : file;
+      if (released.ok) lockReleased = released.value;
+      else warnings.push(released.error.message);
     }
     const discarded = await discardRecovery(this.userDataDir, id.value);
     if (!discarded.ok) return discarded;
-    return done({ lockReleased, recoveryDiscarded: discarded.value });
+    return done({ lockReleased, recoveryDiscarded: discarded.value, warnings });
   }
 
   /** Writes the document's unsaved state to its recovery file (a valid plan only). */

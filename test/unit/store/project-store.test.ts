@@ -79,9 +79,17 @@ describe('ProjectStore: new, save, open, close', () => {
     const doc = store.newDocumentId();
     valueOf(await store.save(planPath, largePlan(1, 'x'), doc));
     valueOf(await store.autosave(doc, planPath, largePlan(1, 'y')));
-    expect(valueOf(await store.close(planPath, doc))).toEqual({ lockReleased: true, recoveryDiscarded: true });
+    expect(valueOf(await store.close(planPath, doc))).toEqual({ lockReleased: true, recoveryDiscarded: true, warnings: [] });
     await expect(stat(lockPathFor(planPath))).rejects.toThrow();
     expect(valueOf(await store.listRecoverable())).toEqual([]);
+  });
+
+  it('closing with a plan path that cannot be used still removes the recovery file, with a warning', async () => {
+    const doc = store.newDocumentId();
+    valueOf(await store.autosave(doc, planPath, largePlan(1, 'y')));
+    const closed = valueOf(await store.close('relative/plan.plumb', doc));
+    expect(closed).toMatchObject({ lockReleased: false, recoveryDiscarded: true });
+    expect(closed.warnings).toEqual(['The plan path "relative/plan.plumb" is not absolute.']);
   });
 
   it('saving clears the autosave of the document', async () => {
