@@ -7,12 +7,5 @@ export interface Failure<C extends string = string> {
 }
 
 export type Result<T, C extends string = string> =
-  { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: Failure<C> };
-
-export function ok<T>(value: T): { readonly ok: true; readonly value: T } {
-  return { ok: true, value };
-}
-
-export function fail<C extends string>(code: C, message: string): { readonly ok: false; readonly error: Failure<C> } {
-  return { ok: false, error: { code, message } };
-}
+  | { readonly ok: true; readonly value: T }
+  | { readonly ok: false; readonly error: Failure<C> };
