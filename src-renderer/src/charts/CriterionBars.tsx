@@ -3,15 +3,17 @@ import { formatCount } from '@shared/format/numbers';
 import type { ComparisonRow } from '@shared/summary/comparison';
 import { criterionColumns } from '@shared/summary/criterion-columns';
 import { seriesColour } from './palette';
+import { chartRows } from './chart-rows';
 
 /** n per population by criterion, in the table's order; the binding criterion's bar is outlined and opaque. */
 export function CriterionBars({
-  rows,
+  rows: ordered,
   selectedId,
 }: {
   readonly rows: readonly ComparisonRow[];
   readonly selectedId: string | null;
 }) {
+  const { rows, hidden } = chartRows(ordered, selectedId);
   const columns = criterionColumns(rows);
   const data = rows.map((row) => {
     const entry: Record<string, number | string | null> = { name: row.name, id: row.populationId, binding: row.binding };
@@ -20,7 +22,10 @@ export function CriterionBars({
   });
   return (
     <figure className="chart" aria-label="Sample size per population by criterion">
-      <figcaption>n per population by criterion (binding criterion opaque and outlined)</figcaption>
+      <figcaption>
+        n per population by criterion (binding criterion opaque and outlined)
+        {hidden > 0 ? `; the first ${rows.length} in the table's order (${hidden} more in the table)` : ''}
+      </figcaption>
       <ResponsiveContainer width="100%" height={320}>
         <BarChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
           <CartesianGrid strokeDasharray="3 3" />

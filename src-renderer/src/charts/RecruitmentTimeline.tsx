@@ -2,6 +2,7 @@ import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer,
 import { formatMonths } from '@shared/format/numbers';
 import type { ComparisonRow } from '@shared/summary/comparison';
 import { SELECTED_COLOUR, WINDOW_COLOUR, seriesColour } from './palette';
+import { chartRows } from './chart-rows';
 
 /** Months each site needs to recruit its enrolment target, against the study window. */
 export function RecruitmentTimeline({

@@ -1,7 +1,8 @@
 import { useCallback, useMemo, useState } from 'react';
 import type { SortingState } from '@tanstack/react-table';
 import type { ContinuousPopulation, Project } from '@shared/model/project';
-import { comparisonRows, comparisonTotals, type Planner } from '@shared/summary/comparison';
+import { comparisonTotals, type Planner } from '@shared/summary/comparison';
+import { createRowCache } from '@shared/summary/row-cache';
 import { comparisonCells, toTsv } from '@shared/summary/table-cells';
 import { duplicatePopulation } from '@shared/model/population-ops';
 import { CriterionBars } from '../charts/CriterionBars';
@@ -29,7 +30,8 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
   const [selectedId, setSelectedId] = useState<string | null>(project.populations[0]?.id ?? null);
   const [invalid, setInvalid] = useState<Record<string, Record<string, string>>>({});
 
-  const rows = useMemo(() => comparisonRows(project, planner), [project, planner]);
+  const cache = useMemo(() => createRowCache(planner), [planner]);
+  const rows = useMemo(() => cache.rows(project), [cache, project]);
   const [orderIds, setOrderIds] = useState<readonly string[]>([]);
   const order = useMemo(() => orderBy(rows, orderIds), [rows, orderIds]);
   const totals = useMemo(() => comparisonTotals(rows), [rows]);
