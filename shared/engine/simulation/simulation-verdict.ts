@@ -90,11 +90,13 @@ function measureVerdict(m: MeasureSummary, result: SimulationResult, reference: 
   const status = statusOf(meanSize, m.targetValue);
   const width = m.scale === 'ci-width';
   const size = width ? 'width' : 'margin';
-  const shown = width ? value(meanSize.value) : `÷/× ${formatSignificant(meanSize.value, 4)}`;
+  // Margins sit just above 1, so they need four significant digits to be told apart.
+  const show = width ? value : (x: number) => formatSignificant(x, 4);
+  const shown = width ? show(meanSize.value) : `÷/× ${show(meanSize.value)}`;
   const conclusion = conclusionOf(status, subject, meanSize.value / m.targetValue - 1, size);
   const text =
     `At n = ${formatCount(result.n)}, ${withError(shareMeetingTarget, percent)} of simulated studies met the ${m.label} ${size} target; ` +
-    `the mean ${size} was ${shown} against the target ${value(m.targetValue)} — ${conclusion}. ` +
+    `the mean ${size} was ${shown} against the target ${show(m.targetValue)} — ${conclusion}. ` +
     `${seSentence(empiricalSe, reference)} ${coverageSentence(coverage, result.confidence)}`;
   return { measureId: m.id, status, text };
 }
