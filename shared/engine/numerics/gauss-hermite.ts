@@ -29,10 +29,10 @@ const NEWTON_CAP = 100;
  * twice for 200 nodes). Then x_k = √2·t_k and w_k = 2/(√π·p_n'(t_k)²).
  * Common practice (Golub & Welsch 1969 / Numerical Recipes, "gauher").
  * Domain: integer 1 ≤ count ≤ 400 (the recurrence overflows beyond); otherwise DomainError.
- * Accuracy: nodes and weights agree with numpy's hermegauss to about 1e-13 (relative) for
- * 200 nodes; expectations of smooth integrands converge geometrically (see the binary
- * calibration-slope accuracy study: 64 nodes suffice while the integrand varies on a scale ≥ 0.7,
- * 200 nodes to about 1e-10 relative while it varies on a scale ≥ 0.5).
+ * Accuracy: nodes agree with numpy's hermegauss to 1e−12 (relative to max(1, |x|)) and weights
+ * to 1e−11 relative for 1 to 300 nodes (test fixture). Expectations are exact for polynomials of
+ * degree ≤ 2n − 1; for logistic integrands the error grows quickly with the spread of the LP
+ * (see lpQuadratureRule in the binary engine for the node-count study).
  * Non-convergence of any root is reported as converged = false (never silently returned).
  * Rules are cached per node count.
  * @example gaussHermiteRule(2) // nodes [-1, 1], weights [0.5, 0.5]
