@@ -28,16 +28,17 @@ function mtime(file) {
   }
 }
 
-function isFresh(outFile, manifestFile) {
+function isFresh(entryPath, outFile, manifestFile) {
   if (!existsSync(outFile) || !existsSync(manifestFile)) return false;
   const built = mtime(outFile);
-  let inputs;
+  let manifest;
   try {
-    inputs = JSON.parse(readFileSync(manifestFile, 'utf8')).inputs;
+    manifest = JSON.parse(readFileSync(manifestFile, 'utf8'));
   } catch {
     return false;
   }
-  if (!Array.isArray(inputs)) return false;
+  const inputs = manifest?.inputs;
+  if (manifest?.entry !== entryPath || !Array.isArray(inputs)) return false;
   const always = [fileURLToPath(import.meta.url), path.join(repoRoot, 'package.json')];
   return [...always, ...inputs].every((file) => mtime(file) <= built);
 }
@@ -52,7 +53,7 @@ export async function buildTs(entry, { name, force = false } = {}) {
   const outName = name ?? path.basename(entryPath).replace(/\.[cm]?tsx?$/, '');
   const outFile = path.join(outDir, `${outName}.mjs`);
   const manifestFile = path.join(outDir, `${outName}.inputs.json`);
-  if (!force && isFresh(outFile, manifestFile)) return outFile;
+  if (!force && isFresh(entryPath, outFile, manifestFile)) return outFile;
 
   const { build } = await import('vite');
   const started = new Date();
@@ -86,14 +87,13 @@ export async function buildTs(entry, { name, force = false } = {}) {
     const chunks = outputs.filter((o) => o.type === 'chunk');
     if (chunks.length !== 1)
       throw new Error(`expected one bundle for ${entry}, got ${chunks.length} (dynamic imports are not supported here)`);
-    const inputs = [...new Set(chunks.flatMap((c) => c.moduleIds ?? Object.keys(c.modules ?? {})))].filter(
-      (id) => !id.startsWith('\0') && path.isAbsolute(id),
-    );
+    const bundled = chunks.flatMap((c) => c.moduleIds ?? Object.keys(c.modules ?? {}));
+    const inputs = [...new Set([entryPath, ...bundled])].filter((id) => !id.startsWith('\0') && path.isAbsolute(id));
     // The manifest goes first and the bundle is stamped with the build's start time, so a source
     // saved while the build ran makes the next run rebuild.
     const builtFile = path.join(workDir, `${outName}.mjs`);
     utimesSync(builtFile, started, started);
-    writeFileSync(path.join(workDir, 'inputs.json'), `${JSON.stringify({ entry, inputs }, null, 2)}\n`);
+    writeFileSync(path.join(workDir, 'inputs.json'), `${JSON.stringify({ entry: entryPath, inputs }, null, 2)}\n`);
     renameSync(path.join(workDir, 'inputs.json'), manifestFile);
     renameSync(builtFile, outFile);
     return outFile;

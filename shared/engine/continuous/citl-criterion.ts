@@ -12,12 +12,13 @@ import { withinTarget } from './precision-tolerance';
 import type { SampleSize } from './sample-size';
 import { closedFormSize, NOT_REACHED } from './sample-size';
 
+/** What criterion 2 reads (field names as in ContinuousValidationInputs, which satisfies it). */
 export interface CitlTarget {
   readonly outcomeVariance: number;
   readonly rSquaredCitl: number;
   readonly slope: number;
   /** Target CI width in outcome units. */
-  readonly width: number;
+  readonly citlWidth: number;
   readonly confidence: number;
 }
 
@@ -66,28 +67,35 @@ function citlVarianceOrOverflow(t: CitlTarget): number | null {
   }
 }
 
+/** The size of criterion 2 for a target (the number only; citlCriterion adds the words). */
+export function citlSize(t: CitlTarget): SampleSize {
+  const variance = citlVarianceOrOverflow(t);
+  return variance === null ? NOT_REACHED : citlSampleSize(variance, seFromCiWidth(t.citlWidth, t.confidence));
+}
+
 function targetText(t: CitlTarget): string {
-  return `${levelText(t.confidence)} CI width for CITL ≤ ${formatSignificant(t.width)} (outcome units)`;
+  return `${levelText(t.confidence)} CI width for CITL ≤ ${formatSignificant(t.citlWidth)} (outcome units)`;
 }
 
 /**
  * Criterion 2 of VAL-CONT as a CriterionResult, with σ²_CITL among the intermediates.
- * @example citlCriterion({ outcomeVariance: 100, rSquaredCitl: 0.8, slope: 1, width: 1, confidence: 0.95 }).n // 308
+ * @example citlCriterion({ outcomeVariance: 100, rSquaredCitl: 0.8, slope: 1, citlWidth: 1, confidence: 0.95 }).n // 308
  */
 export function citlCriterion(t: CitlTarget): CriterionResult {
-  const targetSe = seFromCiWidth(t.width, t.confidence);
+  const targetSe = seFromCiWidth(t.citlWidth, t.confidence);
   const variance = citlVarianceOrOverflow(t);
   if (variance === null) return sizedCriterion(TEXT, targetText(t), NOT_REACHED, []);
+  const size = citlSampleSize(variance, targetSe);
   const intermediates = [
     { name: 'σ²_CITL = var(Y − Ŷ)', value: variance },
     { name: 'target SE(CITL)', value: targetSe },
   ];
-  return sizedCriterion(TEXT, targetText(t), citlSampleSize(variance, targetSe), intermediates);
+  return sizedCriterion(TEXT, targetText(t), size, intermediates);
 }
 
 /**
  * What a fixed n delivers for CITL: SE = σ_CITL/√n and the CI width 2z·SE (outcome units).
- * @example citlPrecisionAtN({ outcomeVariance: 100, rSquaredCitl: 0.8, slope: 1, width: 1, confidence: 0.95 }, 308).meets // true
+ * @example citlPrecisionAtN({ outcomeVariance: 100, rSquaredCitl: 0.8, slope: 1, citlWidth: 1, confidence: 0.95 }, 308).meets // true
  */
 export function citlPrecisionAtN(t: CitlTarget, n: number): PrecisionAtN {
   const variance = citlVarianceOrOverflow(t);
@@ -95,7 +103,7 @@ export function citlPrecisionAtN(t: CitlTarget, n: number): PrecisionAtN {
     id: TEXT.id,
     label: TEXT.label,
     n,
-    targetValue: t.width,
+    targetValue: t.citlWidth,
     scale: `${levelText(t.confidence)} CI width (outcome units)`,
   };
   if (n < CITL_LOWEST_N) {
@@ -104,5 +112,5 @@ export function citlPrecisionAtN(t: CitlTarget, n: number): PrecisionAtN {
   if (variance === null) return { ...base, se: null, achieved: null, meets: false, reason: 'var(Y − Ŷ) is too large to compute' };
   const se = Math.sqrt(variance / n);
   const achieved = 2 * criticalZ(t.confidence) * se;
-  return { ...base, se, achieved, meets: withinTarget(achieved, t.width) };
+  return { ...base, se, achieved, meets: withinTarget(achieved, t.citlWidth) };
 }

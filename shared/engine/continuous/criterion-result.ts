@@ -1,23 +1,34 @@
 // Builds the CriterionResult every consumer reads (table, report, command line) from a criterion's
 // fixed text and its computed size, so each criterion file only states its own maths and words.
 import { formatPercent } from '../../format/numbers';
+import { NumberMemo } from '../helpers/number-memo';
 import type { CriterionPurpose, CriterionResult, Intermediate, ReferenceKey } from '../types';
 import type { ContinuousCriterionId } from './criterion-ids';
 import type { SampleSize } from './sample-size';
 import { BEYOND_LIMIT_REASON } from './sample-size-limit';
 
-/** What a criterion says about itself, independent of the inputs. */
-export interface CriterionText {
-  readonly id: ContinuousCriterionId;
+/** The fixed text of any criterion, whatever its outcome type. */
+export interface CriterionTextOf<Id extends string> {
+  readonly id: Id;
   readonly label: string;
   readonly purpose: CriterionPurpose;
   readonly formula: string;
   readonly references: readonly ReferenceKey[];
 }
 
-/** A confidence level as people write it: 0.95 → "95%", 0.999 → "99.9%". */
+/** What a continuous criterion says about itself, independent of the inputs. */
+export type CriterionText = CriterionTextOf<ContinuousCriterionId>;
+
+const levels = new NumberMemo<string>();
+
+/** A confidence level as people write it: 0.95 → "95%", 0.999 → "99.9%" (remembered per level). */
 export function levelText(confidence: number): string {
-  return formatPercent(confidence, 4);
+  let text = levels.get(confidence);
+  if (text === undefined) {
+    text = formatPercent(confidence, 4);
+    levels.set(confidence, 0, text);
+  }
+  return text;
 }
 
 /**
@@ -31,12 +42,38 @@ export function sizedCriterion(
   intermediates: readonly Intermediate[],
   note?: string,
 ): CriterionResult {
-  const base = { ...text, target, intermediates, status: size.status, n: size.n };
-  if (size.status === 'not-converged') return { ...base, reason: BEYOND_LIMIT_REASON };
-  return note === undefined ? base : { ...base, reason: note };
+  const reason = size.status === 'not-converged' ? BEYOND_LIMIT_REASON : note;
+  return criterionResult(text, target, size.status, size.n, intermediates, reason);
+}
+
+/**
+ * Every result is built by this one literal, so all share one object shape (the engine builds
+ * hundreds of thousands of them in a sweep); `reason` is present but undefined when there is none.
+ * Exported so that every engine (continuous, binary, …) dresses its sizes the same way.
+ */
+export function criterionResult(
+  text: CriterionTextOf<string>,
+  target: string,
+  status: CriterionResult['status'],
+  n: number | null,
+  intermediates: readonly Intermediate[],
+  reason: string | undefined,
+): CriterionResult {
+  return {
+    id: text.id,
+    label: text.label,
+    purpose: text.purpose,
+    status,
+    n,
+    reason,
+    target,
+    formula: text.formula,
+    references: text.references,
+    intermediates,
+  };
 }
 
 /** A criterion that cannot be computed because an input it needs is missing or unusable. */
 export function notAssessableCriterion(text: CriterionText, target: string, reason: string): CriterionResult {
-  return { ...text, target, intermediates: [], status: 'not-assessable', n: null, reason };
+  return criterionResult(text, target, 'not-assessable', null, [], reason);
 }

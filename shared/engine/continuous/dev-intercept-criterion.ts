@@ -3,7 +3,6 @@
 import { formatPercent, formatSignificant } from '../../format/numbers';
 import { requireCount, requireNonZero, requireOpenUnit, requirePositive } from '../helpers/domain-guards';
 import { criticalZ } from '../helpers/critical-z';
-import { smallestIntegerMeeting } from '../numerics/integer-search';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import type { ContinuousDevelopmentInputs } from './continuous-inputs';
 import { criticalT } from './critical-t';
@@ -13,6 +12,7 @@ import { developmentCore } from './development-inputs-check';
 import type { SampleSize } from './sample-size';
 import { NOT_REACHED, searchedSize } from './sample-size';
 import { MAX_SAMPLE_SIZE } from './sample-size-limit';
+import { smallestFromEstimate } from './smallest-from-estimate';
 
 const TEXT: CriterionText = {
   id: 'dev-intercept',
@@ -22,26 +22,33 @@ const TEXT: CriterionText = {
   references: ['DEV-CONT'],
 };
 
-/** Everything the intercept criterion reads. */
+/**
+ * Everything the intercept criterion reads (field names as in ContinuousDevelopmentInputs, which
+ * satisfies it once P, R²_adj, the mean and the SD are known).
+ */
 export interface InterceptTarget {
   readonly predictorParameters: number;
   readonly adjustedRSquared: number;
   readonly outcomeMean: number;
   readonly outcomeSd: number;
   /** Margin factor m: the CI half-width may be (m − 1)·|mean| (1.1 → within 10% of the mean). */
-  readonly marginFactor: number;
+  readonly residualSdMargin: number;
   readonly confidence: number;
 }
 
-function checked(t: InterceptTarget): { residualSd: number; allowed: number } {
+function requireInterceptDomain(t: InterceptTarget): void {
   requireCount('predictorParameters', t.predictorParameters, 1);
   requireOpenUnit('adjustedRSquared', t.adjustedRSquared);
   requireNonZero('outcomeMean', t.outcomeMean);
   requirePositive('outcomeSd', t.outcomeSd);
-  requirePositive('marginFactor − 1', t.marginFactor - 1);
+  requirePositive('residualSdMargin − 1', t.residualSdMargin - 1);
   requireOpenUnit('confidence', t.confidence);
-  return { residualSd: t.outcomeSd * Math.sqrt(1 - t.adjustedRSquared), allowed: (t.marginFactor - 1) * Math.abs(t.outcomeMean) };
 }
+
+/** σ_res = SD·√(1 − R²_adj). */
+const residualSdOf = (t: InterceptTarget): number => t.outcomeSd * Math.sqrt(1 - t.adjustedRSquared);
+/** The allowed CI half-width (m − 1)·|mean|. */
+const allowedOf = (t: InterceptTarget): number => (t.residualSdMargin - 1) * Math.abs(t.outcomeMean);
 
 /** CI half-width for the intercept at n: t_{1−α/2, n−P−1}·σ_res/√n. */
 function halfWidthAt(t: InterceptTarget, residualSd: number, n: number): number {
@@ -50,20 +57,32 @@ function halfWidthAt(t: InterceptTarget, residualSd: number, n: number): number 
 
 /**
  * Smallest n ≥ P + 2 whose CI for the mean outcome (SE = σ_res/√n, Student-t with n − P − 1 df)
- * has half-width ≤ (m − 1)·|mean|. The half-width falls with n, so an integer search is exact; it
- * starts at (z·σ_res/((m − 1)|mean|))², which t > z makes a lower bound.
+ * has half-width ≤ (m − 1)·|mean|. The half-width falls with n, so an integer search is exact. It
+ * searches above (z·σ_res/((m − 1)|mean|))², which t > z makes a lower bound, from an estimate
+ * (first-order expansion of t) that it confirms or corrects (smallestFromEstimate).
  * Domain: whole P ≥ 1, 0 < R²_adj < 1, mean ≠ 0, SD > 0, m > 1, 0 < level < 1; otherwise a DomainError.
  * Source: DEV-CONT criterion (iv) (METHODS.md 3.4 [DERIVED]: the margin as a fraction of the mean).
- * @example interceptSampleSize({ predictorParameters: 25, adjustedRSquared: 0.2, outcomeMean: 1.9, outcomeSd: 0.6, marginFactor: 1.1, confidence: 0.95 }).n // 38
+ * @example interceptSampleSize({ predictorParameters: 25, adjustedRSquared: 0.2, outcomeMean: 1.9, outcomeSd: 0.6, residualSdMargin: 1.1, confidence: 0.95 }).n // 38
  */
 export function interceptSampleSize(t: InterceptTarget): SampleSize {
-  const { residualSd, allowed } = checked(t);
+  requireInterceptDomain(t);
+  const residualSd = residualSdOf(t);
+  const allowed = allowedOf(t);
   const lowest = t.predictorParameters + 2;
-  const normalBound = (criticalZ(t.confidence) * residualSd) / allowed;
-  const lower = Math.max(lowest, Math.floor(normalBound * normalBound));
+  const ratio = residualSd / allowed;
+  const z = criticalZ(t.confidence);
+  const lower = Math.max(lowest, Math.floor(z * ratio * z * ratio));
   if (!(lower <= MAX_SAMPLE_SIZE)) return NOT_REACHED;
   const meets = (n: number): boolean => halfWidthAt(t, residualSd, n) <= allowed;
-  return searchedSize(smallestIntegerMeeting(meets, lower, MAX_SAMPLE_SIZE), lowest);
+  // Estimate: fixed-point steps of n = (t·σ_res/margin)² with the first-order expansion
+  // t ≈ z(1 + (1 + z²)/(4ν)), ν = n − P − 1 (A&S 26.7.5); the search then checks it exactly.
+  const firstOrder = (1 + z * z) / 4;
+  let estimate = lower;
+  for (let i = 0; i < 3; i++) {
+    const tq = z * (1 + firstOrder / Math.max(1, estimate - t.predictorParameters - 1)) * ratio;
+    estimate = Math.max(lower, tq * tq);
+  }
+  return searchedSize(smallestFromEstimate(meets, estimate, lower, MAX_SAMPLE_SIZE), lowest);
 }
 
 function targetText(inputs: ContinuousDevelopmentInputs): string {
@@ -74,19 +93,18 @@ function targetText(inputs: ContinuousDevelopmentInputs): string {
 function interceptTarget(inputs: ContinuousDevelopmentInputs): InterceptTarget | string {
   const core = developmentCore(inputs);
   if (typeof core === 'string') return core;
-  if (inputs.outcomeMean === undefined || inputs.outcomeSd === undefined) {
+  const { outcomeMean, outcomeSd } = core;
+  if (outcomeMean === undefined || outcomeSd === undefined) {
     return 'needs the anticipated outcome mean and SD (anticipated.outcomeMean, anticipated.outcomeSd)';
   }
-  if (inputs.outcomeMean === 0) {
-    return 'the anticipated outcome mean is 0, so a margin relative to the mean is undefined';
-  }
-  return {
-    ...core,
-    outcomeMean: inputs.outcomeMean,
-    outcomeSd: inputs.outcomeSd,
-    marginFactor: inputs.residualSdMargin,
-    confidence: inputs.confidence,
-  };
+  if (outcomeMean === 0) return 'the anticipated outcome mean is 0, so a margin relative to the mean is undefined';
+  return core as InterceptTarget; // the mean and SD were just checked
+}
+
+/** The size of criterion (iv) (the number only), or why it cannot be assessed. */
+export function devInterceptSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
+  const t = interceptTarget(inputs);
+  return typeof t === 'string' ? t : interceptSampleSize(t);
 }
 
 /**
@@ -98,10 +116,9 @@ export function devInterceptCriterion(inputs: ContinuousDevelopmentInputs): Crit
   const t = interceptTarget(inputs);
   if (typeof t === 'string') return notAssessableCriterion(TEXT, targetText(inputs), t);
   const size = interceptSampleSize(t);
-  const { residualSd, allowed } = checked(t);
   const intermediates = [
-    { name: 'residual SD σ_res', value: residualSd },
-    { name: 'allowed half-width (m − 1)·|mean|', value: allowed },
+    { name: 'residual SD σ_res', value: residualSdOf(t) },
+    { name: 'allowed half-width (m − 1)·|mean|', value: allowedOf(t) },
   ];
   const note =
     size.status === 'always-met' ? 'the mean is estimated within the margin at every admissible n (P + 2 and above)' : undefined;
@@ -120,7 +137,9 @@ export function devInterceptPrecisionAtN(inputs: ContinuousDevelopmentInputs, n:
     const targetValue = inputs.outcomeMean === undefined ? 0 : 2 * (inputs.residualSdMargin - 1) * Math.abs(inputs.outcomeMean);
     return { id: TEXT.id, label: TEXT.label, n, se: null, achieved: null, targetValue, scale, meets: null, reason: t };
   }
-  const { residualSd, allowed } = checked(t);
+  requireInterceptDomain(t);
+  const residualSd = residualSdOf(t);
+  const allowed = allowedOf(t);
   const base = { id: TEXT.id, label: TEXT.label, n, targetValue: 2 * allowed, scale };
   if (n < t.predictorParameters + 2) {
     return {

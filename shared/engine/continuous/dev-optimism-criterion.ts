@@ -32,6 +32,13 @@ export function optimismSampleSize(predictorParameters: number, adjustedRSquared
   return closedFormSize(1 + (predictorParameters * (1 - adjustedRSquared)) / optimismMargin, predictorParameters + 2);
 }
 
+/** The size of criterion (ii) (the number only), or why it cannot be assessed. */
+export function devOptimismSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
+  const core = developmentCore(inputs);
+  if (typeof core === 'string') return core;
+  return optimismSampleSize(core.predictorParameters, core.adjustedRSquared, inputs.optimismMargin);
+}
+
 function targetText(inputs: ContinuousDevelopmentInputs): string {
   return `apparent − adjusted R² ≤ ${formatSignificant(inputs.optimismMargin)}`;
 }
@@ -41,9 +48,8 @@ function targetText(inputs: ContinuousDevelopmentInputs): string {
  * @example devOptimismCriterion({ predictorParameters: 25, adjustedRSquared: 0.2, optimismMargin: 0.05, … }).n // 401
  */
 export function devOptimismCriterion(inputs: ContinuousDevelopmentInputs): CriterionResult {
-  const core = developmentCore(inputs);
-  if (typeof core === 'string') return notAssessableCriterion(TEXT, targetText(inputs), core);
-  const size = optimismSampleSize(core.predictorParameters, core.adjustedRSquared, inputs.optimismMargin);
+  const size = devOptimismSize(inputs);
+  if (typeof size === 'string') return notAssessableCriterion(TEXT, targetText(inputs), size);
   const note =
     size.status === 'always-met' ? 'the optimism is within the margin at every admissible n (P + 2 and above)' : undefined;
   return sizedCriterion(TEXT, targetText(inputs), size, [], note);

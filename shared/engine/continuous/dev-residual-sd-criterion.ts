@@ -6,6 +6,7 @@ import { notAssessableCriterion, sizedCriterion } from './criterion-result';
 import { developmentCore } from './development-inputs-check';
 import { residualSdIntermediates, residualSdPrecision, residualSdTargetText } from './residual-sd-criterion';
 import { residualSdSampleSize } from './residual-sd-sample-size';
+import type { SampleSize } from './sample-size';
 
 const TEXT: CriterionText = {
   id: 'dev-residual-sd',
@@ -15,8 +16,11 @@ const TEXT: CriterionText = {
   references: ['DEV-CONT'],
 };
 
-function target(inputs: ContinuousDevelopmentInputs): { marginFactor: number; confidence: number } {
-  return { marginFactor: inputs.residualSdMargin, confidence: inputs.confidence };
+/** The size of criterion (iii) (the number only), or why it cannot be assessed. */
+export function devResidualSdSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
+  const core = developmentCore(inputs);
+  if (typeof core === 'string') return core;
+  return residualSdSampleSize(inputs.residualSdMargin, inputs.confidence, core.predictorParameters + 1);
 }
 
 /**
@@ -25,11 +29,10 @@ function target(inputs: ContinuousDevelopmentInputs): { marginFactor: number; co
  * @example devResidualSdCriterion({ predictorParameters: 25, residualSdMargin: 1.1, confidence: 0.95, … }).n // 259
  */
 export function devResidualSdCriterion(inputs: ContinuousDevelopmentInputs): CriterionResult {
-  const core = developmentCore(inputs);
-  if (typeof core === 'string') return notAssessableCriterion(TEXT, residualSdTargetText(target(inputs)), core);
-  const k = core.predictorParameters + 1;
-  const size = residualSdSampleSize(inputs.residualSdMargin, inputs.confidence, k);
-  return sizedCriterion(TEXT, residualSdTargetText(target(inputs)), size, residualSdIntermediates(size.n, k, inputs.confidence));
+  const size = devResidualSdSize(inputs);
+  if (typeof size === 'string') return notAssessableCriterion(TEXT, residualSdTargetText(inputs), size);
+  const k = (inputs.predictorParameters ?? 0) + 1;
+  return sizedCriterion(TEXT, residualSdTargetText(inputs), size, residualSdIntermediates(size.n, k, inputs.confidence));
 }
 
 /**
@@ -39,18 +42,17 @@ export function devResidualSdCriterion(inputs: ContinuousDevelopmentInputs): Cri
 export function devResidualSdPrecisionAtN(inputs: ContinuousDevelopmentInputs, n: number): PrecisionAtN {
   const core = developmentCore(inputs);
   if (typeof core === 'string') {
-    const t = target(inputs);
     return {
       id: TEXT.id,
       label: TEXT.label,
       n,
       se: null,
       achieved: null,
-      targetValue: t.marginFactor,
+      targetValue: inputs.residualSdMargin,
       scale: 'multiplicative margin',
       meets: null,
       reason: core,
     };
   }
-  return residualSdPrecision(TEXT, target(inputs), n, core.predictorParameters + 1);
+  return residualSdPrecision(TEXT, inputs, n, core.predictorParameters + 1);
 }

@@ -9,6 +9,7 @@ import { developmentCore } from './development-inputs-check';
 import { expectedShrinkage } from './expected-shrinkage';
 import { atLeastTarget } from './precision-tolerance';
 import { adjustedR2LinkShrinkageSize, closedFormShrinkageSize, shrinkageBranchStart } from './shrinkage-sample-size';
+import type { SampleSize } from './sample-size';
 import { MAX_SAMPLE_SIZE } from './sample-size-limit';
 
 const LINK_TEXT: CriterionText = {
@@ -28,6 +29,25 @@ const CLOSED_TEXT: CriterionText = {
   references: ['DEV-CONT', 'DEV-BIN-SURV'],
 };
 
+const CLOSED_FORM_DOMAIN = 'the closed form needs the anticipated adjusted R² below the target shrinkage';
+
+/**
+ * The size of criterion (i) in the chosen form (the number only), or why it cannot be assessed.
+ * @example devShrinkageSize({ predictorParameters: 25, adjustedRSquared: 0.2, targetShrinkage: 0.9, shrinkageForm: 'closed-form', … }) // { n: 995, status: 'ok' }
+ */
+export function devShrinkageSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
+  const core = developmentCore(inputs);
+  if (typeof core === 'string') return core;
+  const { predictorParameters: p, adjustedRSquared: r2 } = core;
+  if (inputs.shrinkageForm !== 'closed-form') return adjustedR2LinkShrinkageSize(p, r2, inputs.targetShrinkage);
+  return r2 < inputs.targetShrinkage ? closedFormShrinkageSize(p, r2, inputs.targetShrinkage) : CLOSED_FORM_DOMAIN;
+}
+
+function closedFormReason(inputs: ContinuousDevelopmentInputs): string {
+  const r2 = formatSignificant(inputs.adjustedRSquared ?? Number.NaN);
+  return `${CLOSED_FORM_DOMAIN} (${r2} is not below ${formatSignificant(inputs.targetShrinkage)})`;
+}
+
 function targetText(inputs: ContinuousDevelopmentInputs): string {
   return `expected shrinkage factor ≥ ${formatSignificant(inputs.targetShrinkage)}`;
 }
@@ -40,24 +60,19 @@ function targetText(inputs: ContinuousDevelopmentInputs): string {
  */
 export function devShrinkageCriterion(inputs: ContinuousDevelopmentInputs): CriterionResult {
   const text = inputs.shrinkageForm === 'closed-form' ? CLOSED_TEXT : LINK_TEXT;
-  const core = developmentCore(inputs);
-  if (typeof core === 'string') return notAssessableCriterion(text, targetText(inputs), core);
-  const { predictorParameters: p, adjustedRSquared: r2 } = core;
-  const s = inputs.targetShrinkage;
+  const size = devShrinkageSize(inputs);
+  if (typeof size === 'string') {
+    return notAssessableCriterion(text, targetText(inputs), size === CLOSED_FORM_DOMAIN ? closedFormReason(inputs) : size);
+  }
+  // Sized, so both P and R²_adj are known.
+  const p = inputs.predictorParameters ?? 0;
+  const r2 = inputs.adjustedRSquared ?? 0;
   if (inputs.shrinkageForm === 'closed-form') {
-    if (!(r2 < s)) {
-      return notAssessableCriterion(
-        text,
-        targetText(inputs),
-        `the closed form needs the anticipated adjusted R² (${formatSignificant(r2)}) below the target shrinkage (${formatSignificant(s)})`,
-      );
-    }
-    const size = closedFormShrinkageSize(p, r2, s);
     const note =
       size.status === 'always-met' ? 'the closed form asks for no more than the smallest admissible n (P + 2)' : undefined;
-    return sizedCriterion(text, targetText(inputs), size, [{ name: 'unrounded n', value: closedFormShrinkageN(p, r2, s) }], note);
+    const raw = closedFormShrinkageN(p, r2, inputs.targetShrinkage);
+    return sizedCriterion(text, targetText(inputs), size, [{ name: 'unrounded n', value: raw }], note);
   }
-  const size = adjustedR2LinkShrinkageSize(p, r2, s);
   const intermediates =
     size.n === null
       ? []

@@ -6,14 +6,24 @@ export interface DevelopmentCore {
   readonly adjustedRSquared: number;
 }
 
+const NEEDS_P = 'the number of predictor parameters (updating.predictorParameters)';
+const NEEDS_R2 = 'the anticipated adjusted R² (updating.anticipatedAdjustedRSquared)';
+const MISSING_P = `needs ${NEEDS_P}`;
+const MISSING_R2 = `needs ${NEEDS_R2}`;
+const MISSING_BOTH = `needs ${NEEDS_P} and ${NEEDS_R2}`;
+
+/** Development inputs with P and R²_adj known. */
+export type CompleteDevelopmentInputs = ContinuousDevelopmentInputs & DevelopmentCore;
+
 /**
- * The two inputs every development criterion needs, or the reason the criteria cannot be assessed
- * (named after the project fields so the user knows what to fill in).
+ * The inputs themselves once the two that every development criterion needs are known, or the
+ * reason the criteria cannot be assessed (named after the project fields so the user knows what
+ * to fill in). No copy is made: this runs four times per population in every sweep.
  */
-export function developmentCore(inputs: ContinuousDevelopmentInputs): DevelopmentCore | string {
-  const missing: string[] = [];
-  if (inputs.predictorParameters === undefined) missing.push('the number of predictor parameters (updating.predictorParameters)');
-  if (inputs.adjustedRSquared === undefined) missing.push('the anticipated adjusted R² (updating.anticipatedAdjustedRSquared)');
-  if (inputs.predictorParameters === undefined || inputs.adjustedRSquared === undefined) return `needs ${missing.join(' and ')}`;
-  return { predictorParameters: inputs.predictorParameters, adjustedRSquared: inputs.adjustedRSquared };
+export function developmentCore(inputs: ContinuousDevelopmentInputs): CompleteDevelopmentInputs | string {
+  const p = inputs.predictorParameters;
+  const r2 = inputs.adjustedRSquared;
+  if (p === undefined) return r2 === undefined ? MISSING_BOTH : MISSING_P;
+  if (r2 === undefined) return MISSING_R2;
+  return inputs as CompleteDevelopmentInputs; // both fields were just checked
 }

@@ -16,20 +16,12 @@ import { slopeCriterion, slopePrecisionAtN } from './slope-criterion';
  * them first). @example evaluateContinuousValidation(inputs).map((c) => c.n) // [762, 308, 98, 234, 235]
  */
 export function evaluateContinuousValidation(inputs: ContinuousValidationInputs): CriterionResult[] {
-  const { confidence } = inputs;
-  const residual = { marginFactor: inputs.residualSdMargin, confidence };
   return [
-    r2Criterion({ rSquared: inputs.rSquared, width: inputs.r2Width, confidence }),
-    citlCriterion({
-      outcomeVariance: inputs.outcomeVariance,
-      rSquaredCitl: inputs.rSquaredCitl,
-      slope: inputs.slope,
-      width: inputs.citlWidth,
-      confidence,
-    }),
-    slopeCriterion({ rSquaredSlope: inputs.rSquaredSlope, slope: inputs.slope, width: inputs.slopeWidth, confidence }),
-    residualSdCriterion('citl', residual),
-    residualSdCriterion('slope', residual),
+    r2Criterion(inputs),
+    citlCriterion(inputs),
+    slopeCriterion(inputs),
+    residualSdCriterion('citl', inputs),
+    residualSdCriterion('slope', inputs),
   ];
 }
 
@@ -49,23 +41,12 @@ export function evaluateContinuousDevelopment(inputs: ContinuousDevelopmentInput
 
 /** What a fixed n delivers for each validation measure, in the same order as the criteria. */
 export function validationPrecisionAtN(inputs: ContinuousValidationInputs, n: number): PrecisionAtN[] {
-  const { confidence } = inputs;
-  const residual = { marginFactor: inputs.residualSdMargin, confidence };
   return [
-    r2PrecisionAtN({ rSquared: inputs.rSquared, width: inputs.r2Width, confidence }, n),
-    citlPrecisionAtN(
-      {
-        outcomeVariance: inputs.outcomeVariance,
-        rSquaredCitl: inputs.rSquaredCitl,
-        slope: inputs.slope,
-        width: inputs.citlWidth,
-        confidence,
-      },
-      n,
-    ),
-    slopePrecisionAtN({ rSquaredSlope: inputs.rSquaredSlope, slope: inputs.slope, width: inputs.slopeWidth, confidence }, n),
-    residualSdPrecisionAtN('citl', residual, n),
-    residualSdPrecisionAtN('slope', residual, n),
+    r2PrecisionAtN(inputs, n),
+    citlPrecisionAtN(inputs, n),
+    slopePrecisionAtN(inputs, n),
+    residualSdPrecisionAtN('citl', inputs, n),
+    residualSdPrecisionAtN('slope', inputs, n),
   ];
 }
 

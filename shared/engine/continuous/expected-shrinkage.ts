@@ -17,6 +17,11 @@ export function expectedShrinkage(n: number, predictorParameters: number, adjust
   requireCount('predictorParameters', predictorParameters, 1);
   requireOpenUnit('adjustedRSquared', adjustedRSquared);
   requireCount('n', n, predictorParameters + 2);
+  return expectedShrinkageKernel(n, predictorParameters, adjustedRSquared);
+}
+
+/** The formula of expectedShrinkage without the domain checks, for searches that checked once. */
+export function expectedShrinkageKernel(n: number, predictorParameters: number, adjustedRSquared: number): number {
   const residualFraction = ((1 - adjustedRSquared) * (n - predictorParameters - 1)) / (n - 1);
   return 1 + (predictorParameters - 2) / (n * Math.log(residualFraction));
 }

@@ -15,6 +15,11 @@ export const R2_SE_PEAK_N = 7;
 export function r2StandardError(rSquared: number, n: number): number {
   requireOpenUnit('rSquared', rSquared);
   requireCount('n', n, 3);
+  return r2StandardErrorKernel(rSquared, n);
+}
+
+/** The formula of r2StandardError without the domain checks, for searches that checked once. */
+export function r2StandardErrorKernel(rSquared: number, n: number): number {
   const oneMinus = 1 - rSquared;
   return Math.sqrt((4 * rSquared * oneMinus * oneMinus * (n - 2) * (n - 2)) / ((n * n - 1) * (n + 3)));
 }

@@ -5,9 +5,11 @@ import type { CriterionResult, Intermediate, PrecisionAtN } from '../types';
 import type { CriterionText } from './criterion-result';
 import { levelText, sizedCriterion } from './criterion-result';
 import { residualSdSampleSize } from './residual-sd-sample-size';
+import type { SampleSize } from './sample-size';
 
+/** What criterion 4 reads (field names as in the validation and development inputs, which satisfy it). */
 export interface ResidualSdTarget {
-  readonly marginFactor: number;
+  readonly residualSdMargin: number;
   readonly confidence: number;
 }
 
@@ -35,7 +37,7 @@ const TEXTS: Readonly<Record<CalibrationModel, CriterionText>> = {
 
 /** Target wording shared with the development residual-SD criterion. */
 export function residualSdTargetText(t: ResidualSdTarget): string {
-  return `${levelText(t.confidence)} CI for the residual SD within ×/÷ ${formatSignificant(t.marginFactor)}`;
+  return `${levelText(t.confidence)} CI for the residual SD within ×/÷ ${formatSignificant(t.residualSdMargin)}`;
 }
 
 /** MMOE at the chosen n, for the intermediates (the df that first meets the margin). */
@@ -48,14 +50,19 @@ export function residualSdIntermediates(n: number | null, coefficients: number, 
   ];
 }
 
+/** The size of criterion 4 for one calibration model (the number only). */
+export function residualSdSize(model: CalibrationModel, t: ResidualSdTarget): SampleSize {
+  return residualSdSampleSize(t.residualSdMargin, t.confidence, COEFFICIENTS[model]);
+}
+
 /**
  * Criterion 4 of VAL-CONT for one calibration model: 234 (CITL model) and 235 (slope model) at
  * margin 1.1 and 95%.
- * @example residualSdCriterion('slope', { marginFactor: 1.1, confidence: 0.95 }).n // 235
+ * @example residualSdCriterion('slope', { residualSdMargin: 1.1, confidence: 0.95 }).n // 235
  */
 export function residualSdCriterion(model: CalibrationModel, t: ResidualSdTarget): CriterionResult {
   const k = COEFFICIENTS[model];
-  const size = residualSdSampleSize(t.marginFactor, t.confidence, k);
+  const size = residualSdSize(model, t);
   return sizedCriterion(TEXTS[model], residualSdTargetText(t), size, residualSdIntermediates(size.n, k, t.confidence));
 }
 
@@ -65,7 +72,7 @@ export function residualSdPrecision(text: CriterionText, t: ResidualSdTarget, n:
     id: text.id,
     label: text.label,
     n,
-    targetValue: t.marginFactor,
+    targetValue: t.residualSdMargin,
     scale: `multiplicative margin of the ${levelText(t.confidence)} CI for the SD`,
     se: null,
   };
@@ -74,12 +81,12 @@ export function residualSdPrecision(text: CriterionText, t: ResidualSdTarget, n:
     return { ...base, achieved: null, meets: false, reason: `a residual SD needs more than ${coefficients} participants` };
   }
   const achieved = multiplicativeMarginOfError(df, t.confidence);
-  return { ...base, achieved, meets: achieved <= t.marginFactor };
+  return { ...base, achieved, meets: achieved <= t.residualSdMargin };
 }
 
 /**
  * What a fixed n delivers for a calibration model's residual SD: the multiplicative margin MMOE(n − k).
- * @example residualSdPrecisionAtN('citl', { marginFactor: 1.1, confidence: 0.95 }, 234).achieved // 1.099848…
+ * @example residualSdPrecisionAtN('citl', { residualSdMargin: 1.1, confidence: 0.95 }, 234).achieved // 1.099848…
  */
 export function residualSdPrecisionAtN(model: CalibrationModel, t: ResidualSdTarget, n: number): PrecisionAtN {
   return residualSdPrecision(TEXTS[model], t, n, COEFFICIENTS[model]);

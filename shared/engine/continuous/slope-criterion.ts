@@ -10,10 +10,11 @@ import { withinTarget } from './precision-tolerance';
 import type { SampleSize } from './sample-size';
 import { closedFormSize } from './sample-size';
 
+/** What criterion 3 reads (field names as in ContinuousValidationInputs, which satisfies it). */
 export interface SlopeTarget {
   readonly rSquaredSlope: number;
   readonly slope: number;
-  readonly width: number;
+  readonly slopeWidth: number;
   readonly confidence: number;
 }
 
@@ -53,30 +54,35 @@ export function slopeStandardError(rSquaredSlope: number, slope: number, n: numb
   return Math.sqrt((slope * slope * (1 - rSquaredSlope)) / (rSquaredSlope * (n - 1)));
 }
 
+/** The size of criterion 3 for a target (the number only; slopeCriterion adds the words). */
+export function slopeSize(t: SlopeTarget): SampleSize {
+  return slopeSampleSize(t.rSquaredSlope, t.slope, seFromCiWidth(t.slopeWidth, t.confidence));
+}
+
 function targetText(t: SlopeTarget): string {
-  return `${levelText(t.confidence)} CI width for the calibration slope ≤ ${formatSignificant(t.width)}`;
+  return `${levelText(t.confidence)} CI width for the calibration slope ≤ ${formatSignificant(t.slopeWidth)}`;
 }
 
 /**
  * Criterion 3 of VAL-CONT as a CriterionResult.
- * @example slopeCriterion({ rSquaredSlope: 0.8, slope: 1, width: 0.2, confidence: 0.95 }).n // 98
+ * @example slopeCriterion({ rSquaredSlope: 0.8, slope: 1, slopeWidth: 0.2, confidence: 0.95 }).n // 98
  */
 export function slopeCriterion(t: SlopeTarget): CriterionResult {
-  const targetSe = seFromCiWidth(t.width, t.confidence);
+  const targetSe = seFromCiWidth(t.slopeWidth, t.confidence);
   const intermediates = [{ name: 'target SE(slope)', value: targetSe }];
-  return sizedCriterion(TEXT, targetText(t), slopeSampleSize(t.rSquaredSlope, t.slope, targetSe), intermediates);
+  return sizedCriterion(TEXT, targetText(t), slopeSize(t), intermediates);
 }
 
 /**
  * What a fixed n delivers for the calibration slope: its SE and the CI width 2z·SE.
- * @example slopePrecisionAtN({ rSquaredSlope: 0.8, slope: 1, width: 0.2, confidence: 0.95 }, 98).se // 0.050767…
+ * @example slopePrecisionAtN({ rSquaredSlope: 0.8, slope: 1, slopeWidth: 0.2, confidence: 0.95 }, 98).se // 0.050767…
  */
 export function slopePrecisionAtN(t: SlopeTarget, n: number): PrecisionAtN {
-  const base = { id: TEXT.id, label: TEXT.label, n, targetValue: t.width, scale: `${levelText(t.confidence)} CI width` };
+  const base = { id: TEXT.id, label: TEXT.label, n, targetValue: t.slopeWidth, scale: `${levelText(t.confidence)} CI width` };
   if (n < SLOPE_LOWEST_N) {
     return { ...base, se: null, achieved: null, meets: false, reason: 'the calibration slope needs at least 3 participants' };
   }
   const se = slopeStandardError(t.rSquaredSlope, t.slope, n);
   const achieved = 2 * criticalZ(t.confidence) * se;
-  return { ...base, se, achieved, meets: withinTarget(achieved, t.width) };
+  return { ...base, se, achieved, meets: withinTarget(achieved, t.slopeWidth) };
 }

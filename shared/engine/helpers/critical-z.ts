@@ -1,7 +1,7 @@
 import { zForConfidence } from '../numerics/distributions';
+import { NumberMemo } from './number-memo';
 
-const remembered = new Map<number, number>();
-const LIMIT = 64;
+const remembered = new NumberMemo<number>();
 
 /**
  * Two-sided normal critical value z = Φ⁻¹(1 − (1 − confidence)/2), remembered per level: planning
@@ -11,10 +11,10 @@ const LIMIT = 64;
  * @example criticalZ(0.95) // 1.959963984540054
  */
 export function criticalZ(confidence: number): number {
-  const known = remembered.get(confidence);
-  if (known !== undefined) return known;
-  const z = zForConfidence(confidence);
-  if (remembered.size >= LIMIT) remembered.clear();
-  remembered.set(confidence, z);
+  let z = remembered.get(confidence);
+  if (z === undefined) {
+    z = zForConfidence(confidence);
+    remembered.set(confidence, 0, z);
+  }
   return z;
 }

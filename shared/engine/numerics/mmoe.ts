@@ -3,6 +3,7 @@
 // criteria for the residual SDs of both calibration models and by the development criterion for the
 // residual SD, so it lives with the numerics rather than with either.
 import { DomainError } from '../errors';
+import { NumberMemo } from '../helpers/number-memo';
 import { chiSquareQuantile } from './distributions';
 import type { IntegerSearchResult } from './integer-search';
 import { smallestIntegerMeeting } from './integer-search';
@@ -37,8 +38,8 @@ export function multiplicativeMarginOfError(df: number, confidence = 0.95): numb
 /** Degrees of freedom above this are not searched: a study that large is not a plan. */
 export const MMOE_MAX_DF = 100_000_000;
 
-const cache = new Map<string, IntegerSearchResult>();
-const CACHE_LIMIT = 256;
+// Remembered searches, keyed by (margin, confidence).
+const remembered = new NumberMemo<IntegerSearchResult>();
 
 /**
  * Smallest integer df ≥ 1 with MMOE(df) ≤ marginFactor at the given confidence level. MMOE falls
@@ -55,11 +56,9 @@ export function smallestDfForMargin(marginFactor: number, confidence = 0.95): In
     throw new DomainError('marginFactor', marginFactor, 'a finite number greater than 1');
   }
   requireConfidence(confidence);
-  const key = `${marginFactor}|${confidence}`;
-  const known = cache.get(key);
+  const known = remembered.get(marginFactor, confidence);
   if (known !== undefined) return known;
   const result = smallestIntegerMeeting((df) => multiplicativeMarginOfError(df, confidence) <= marginFactor, 1, MMOE_MAX_DF);
-  if (cache.size >= CACHE_LIMIT) cache.clear();
-  cache.set(key, result);
+  remembered.set(marginFactor, confidence, result);
   return result;
 }

@@ -119,7 +119,7 @@ const OURS: Readonly<Record<string, () => number>> = {
         adjustedRSquared: 0.2,
         outcomeMean: 1.9,
         outcomeSd: 0.6,
-        marginFactor: 1.1,
+        residualSdMargin: 1.1,
         confidence: 0.95,
       }),
     ),
