@@ -1,0 +1,39 @@
+import type { ProjectPlan } from '@shared/engine/plan/plan-project';
+import type { ComparisonRow } from '@shared/summary/comparison';
+import { CAUTIONS } from '@shared/text/cautions';
+
+/**
+ * The --json output: `{ "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }`
+ * with further fields in each object (status, label, target and reason per criterion; the
+ * validation and development minimums, worst case, enrolment and precision at the available n per
+ * population; the total and the cautions at the top).
+ */
+export function formatJson(plan: ProjectPlan, rows: readonly ComparisonRow[]): string {
+  const populations = plan.populations.map((p, i) => {
+    const row = rows[i];
+    return {
+      name: p.name,
+      requiredN: p.requiredN,
+      binding: p.binding,
+      criteria: p.criteria.map((c) => ({
+        id: c.id,
+        n: c.n,
+        status: c.status,
+        purpose: c.purpose,
+        label: c.label,
+        target: c.target,
+        ...(c.reason === undefined ? {} : { reason: c.reason }),
+      })),
+      id: p.id,
+      validationN: p.validationN,
+      developmentN: p.developmentN,
+      worstCase: p.worstCase,
+      enrolmentTarget: row?.enrolmentTarget ?? null,
+      monthsToRecruit: row?.months ?? null,
+      availableN: p.availableN,
+      precisionAtAvailableN: p.precisionAtAvailableN,
+      problems: p.problems,
+    };
+  });
+  return `${JSON.stringify({ populations, totalRequiredN: plan.totalRequiredN, cautions: CAUTIONS }, null, 2)}\n`;
+}

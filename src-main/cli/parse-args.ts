@@ -1,0 +1,61 @@
+// The command line's arguments: one plan file or --demo, and at most one output format.
+
+export type OutputFormat = 'table' | 'json' | 'csv' | 'markdown';
+
+export type PlanArgs =
+  | {
+      readonly kind: 'plan';
+      readonly source: { readonly demo: true } | { readonly demo: false; readonly file: string };
+      readonly format: OutputFormat;
+    }
+  | { readonly kind: 'help' }
+  | { readonly kind: 'usage-error'; readonly message: string };
+
+export const USAGE = `Usage: npm run --silent plan -- <plan-file> [--json | --csv | --markdown]
+       npm run --silent plan -- --demo [--json | --csv | --markdown]
+
+Prints, for each population of the plan, every criterion's minimum n, the required n and the
+criterion that sets it. Without a format option the output is a readable table.
+
+  --demo       use the bundled demo plan (demo/consortium-continuous.plumb)
+  --json       machine-readable JSON: { "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }
+  --csv        one row per population (RFC 4180)
+  --markdown   tables in Markdown
+  --help       this text
+
+Exit status: 0 on success, 2 when the plan or the arguments are invalid (the problems are printed
+on stderr), 1 on any other error.`;
+
+const FORMATS: Readonly<Record<string, OutputFormat>> = { '--json': 'json', '--csv': 'csv', '--markdown': 'markdown' };
+
+/** Reads argv (without the node and script paths). */
+export function parseArgs(argv: readonly string[]): PlanArgs {
+  let format: OutputFormat | null = null;
+  let demo = false;
+  const files: string[] = [];
+  let onlyFiles = false;
+  for (const arg of argv) {
+    if (!onlyFiles && arg === '--') {
+      onlyFiles = true;
+    } else if (!onlyFiles && (arg === '--help' || arg === '-h')) {
+      return { kind: 'help' };
+    } else if (!onlyFiles && arg === '--demo') {
+      demo = true;
+    } else if (!onlyFiles && arg in FORMATS) {
+      const chosen = FORMATS[arg] ?? 'table';
+      if (format !== null && format !== chosen)
+        return { kind: 'usage-error', message: 'choose one output format: --json, --csv or --markdown' };
+      format = chosen;
+    } else if (!onlyFiles && arg.startsWith('-') && arg !== '-') {
+      return { kind: 'usage-error', message: `unknown option ${arg}` };
+    } else {
+      files.push(arg);
+    }
+  }
+  if (demo && files.length > 0) return { kind: 'usage-error', message: 'give either a plan file or --demo, not both' };
+  if (files.length > 1) return { kind: 'usage-error', message: `give one plan file (got ${files.length})` };
+  const file = files[0];
+  if (!demo && file === undefined)
+    return { kind: 'usage-error', message: 'give a plan file, or --demo for the bundled demo plan' };
+  return { kind: 'plan', source: file === undefined ? { demo: true } : { demo: false, file }, format: format ?? 'table' };
+}

@@ -1,0 +1,73 @@
+// The `plan` command: reads a plan file (or the bundled demo), validates it field by field and
+// prints every population's plan as a table, JSON, CSV or Markdown.
+import { readFile } from 'node:fs/promises';
+import { planProject } from '@shared/engine/plan/plan-project';
+import { parsePlanText } from '@shared/model/plan-file';
+import type { Project } from '@shared/model/project';
+import { comparisonCells } from '@shared/summary/table-cells';
+import { comparisonRows, comparisonTotals, rankByRequiredN } from '@shared/summary/comparison';
+import { toCsv } from '@shared/summary/table-cells';
+import { formatJson } from './format-json';
+import { formatMarkdown } from './format-markdown';
+import { formatTable } from './format-table';
+import { parseArgs, USAGE } from './parse-args';
+import { continuousPlanner } from './planner';
+
+export const EXIT_OK = 0;
+export const EXIT_FAILURE = 1;
+export const EXIT_INVALID = 2;
+
+export interface PlanIo {
+  readonly stdout: (text: string) => void;
+  readonly stderr: (text: string) => void;
+  /** Absolute path of the bundled demo plan. */
+  readonly demoPath: string;
+}
+
+async function loadProject(path: string, io: PlanIo): Promise<Project | number> {
+  let text: string;
+  try {
+    text = await readFile(path, 'utf8');
+  } catch (error) {
+    const reason = error instanceof Error && 'code' in error && error.code === 'ENOENT' ? 'no such file' : String(error);
+    io.stderr(`plan: cannot read ${path}: ${reason}\n`);
+    return EXIT_FAILURE;
+  }
+  const parsed = parsePlanText(text);
+  if (!parsed.ok) {
+    io.stderr(`plan: ${path}: ${parsed.error.message}\n`);
+    return EXIT_INVALID;
+  }
+  return parsed.project;
+}
+
+/** Runs the command with `argv` (arguments after the script name); resolves to the exit status. */
+export async function runPlan(argv: readonly string[], io: PlanIo): Promise<number> {
+  const args = parseArgs(argv);
+  if (args.kind === 'help') {
+    io.stdout(`${USAGE}\n`);
+    return EXIT_OK;
+  }
+  if (args.kind === 'usage-error') {
+    io.stderr(`plan: ${args.message}\n\n${USAGE}\n`);
+    return EXIT_INVALID;
+  }
+  const path = args.source.demo ? io.demoPath : args.source.file;
+  const project = await loadProject(path, io);
+  if (typeof project === 'number') return project;
+  try {
+    const plan = planProject(project);
+    const rows = comparisonRows(project, continuousPlanner);
+    if (args.format === 'json') io.stdout(formatJson(plan, rows));
+    else if (args.format === 'table') io.stdout(formatTable(project, plan, rows));
+    else {
+      const ranked = rankByRequiredN(rows);
+      const cells = comparisonCells(ranked, comparisonTotals(ranked));
+      io.stdout(args.format === 'csv' ? toCsv(cells) : formatMarkdown(project, plan, cells));
+    }
+    return EXIT_OK;
+  } catch (error) {
+    io.stderr(`plan: could not compute the plan: ${error instanceof Error ? error.message : String(error)}\n`);
+    return EXIT_FAILURE;
+  }
+}
