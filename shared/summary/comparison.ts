@@ -69,7 +69,7 @@ export interface SensitivityCurveLike {
 export interface Planner {
   plan(population: Population, project: Project): PopulationPlanLike;
   worstCase?(population: Population, project: Project): WorstCaseLike | null;
-  sensitivity?(population: Population, project: Project): readonly SensitivityCurveLike[];
+  sensitivity?(population: Population, project: Pick<Project, 'updating'>): readonly SensitivityCurveLike[];
 }
 
 export function comparisonRow(population: Population, project: Project, planner: Planner): ComparisonRow {

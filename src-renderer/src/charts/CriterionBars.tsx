@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { Bar, BarChart, CartesianGrid, Cell, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatCount } from '@shared/format/numbers';
 import type { ComparisonRow } from '@shared/summary/comparison';
@@ -6,7 +7,7 @@ import { seriesColour } from './palette';
 import { chartRows } from './chart-rows';
 
 /** n per population by criterion, in the table's order; the binding criterion's bar is outlined and opaque. */
-export function CriterionBars({
+export const CriterionBars = memo(function CriterionBars({
   rows: ordered,
   selectedId,
 }: {
@@ -53,4 +54,4 @@ export function CriterionBars({
       </ResponsiveContainer>
     </figure>
   );
-}
+});

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatMonths } from '@shared/format/numbers';
 import type { ComparisonRow } from '@shared/summary/comparison';
@@ -5,7 +6,7 @@ import { SELECTED_COLOUR, WINDOW_COLOUR, seriesColour } from './palette';
 import { chartRows } from './chart-rows';
 
 /** Months each site needs to recruit its enrolment target, against the study window. */
-export function RecruitmentTimeline({
+export const RecruitmentTimeline = memo(function RecruitmentTimeline({
   rows,
   windowMonths,
   selectedId,
@@ -50,4 +51,4 @@ export function RecruitmentTimeline({
       </ResponsiveContainer>
     </figure>
   );
-}
+});

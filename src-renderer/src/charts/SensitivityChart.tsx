@@ -1,3 +1,4 @@
+import { memo, useMemo } from 'react';
 import {
   CartesianGrid,
   Line,
@@ -18,22 +19,23 @@ import { seriesColour } from './palette';
  * Required n against each anticipated value across its low–high range (the others held at their
  * base values); the base value is marked, with the base n as a dashed line.
  */
-export function SensitivityChart({
+export const SensitivityChart = memo(function SensitivityChart({
   population,
-  project,
+  updating,
   planner,
 }: {
   readonly population: Population;
-  readonly project: Project;
+  readonly updating: Project['updating'];
   readonly planner: Planner;
 }) {
-  let curves: ReturnType<NonNullable<Planner['sensitivity']>> = [];
-  let problem: string | null = null;
-  try {
-    curves = planner.sensitivity?.(population, project) ?? [];
-  } catch (error) {
-    problem = error instanceof Error ? error.message : String(error);
-  }
+  // Recomputed only when this population or the updating settings change, not on every edit elsewhere.
+  const { curves, problem } = useMemo(() => {
+    try {
+      return { curves: planner.sensitivity?.(population, { updating }) ?? [], problem: null };
+    } catch (error) {
+      return { curves: [], problem: error instanceof Error ? error.message : String(error) };
+    }
+  }, [planner, population, updating]);
   if (problem !== null) return <p className="field-error">Sensitivity curves could not be drawn: {problem}</p>;
   if (curves.length === 0) {
     return (
@@ -83,4 +85,4 @@ export function SensitivityChart({
       </div>
     </div>
   );
-}
+});

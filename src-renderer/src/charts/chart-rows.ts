@@ -1,5 +1,5 @@
 /** Bar charts stay readable up to about this many populations. */
-export const CHART_ROW_LIMIT = 24;
+export const CHART_ROW_LIMIT = 12;
 
 /**
  * The rows a chart draws: the first CHART_ROW_LIMIT in the table's order, plus the selected row if

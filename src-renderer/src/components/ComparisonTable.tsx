@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
+import { memo, useEffect, useMemo, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import {
   createColumnHelper,
   createSortedRowModel,
@@ -17,10 +17,12 @@ const helper = createColumnHelper<typeof features, ComparisonRow>();
 
 const FEASIBILITY_TEXT = { fits: 'fits the window', exceeds: 'exceeds the window', unknown: 'not known' } as const;
 
-function criterionCell(row: ComparisonRow, column: CriterionColumn) {
+/** How one body cell shows a row; `invalid` marks a population with a rejected entry. */
+type CellRenderer = (row: ComparisonRow, invalid: boolean) => ReactNode;
+
+function criterionCell(row: ComparisonRow, column: CriterionColumn): ReactNode {
   const result = row.criteria.find((c) => c.id === column.id);
   if (result === undefined) return <span className="muted">—</span>;
-  const binding = row.binding === column.id;
   if (result.n === null) {
     return (
       <span className="muted" title={result.reason}>
@@ -28,6 +30,7 @@ function criterionCell(row: ComparisonRow, column: CriterionColumn) {
       </span>
     );
   }
+  const binding = row.binding === column.id;
   return (
     <span className={binding ? 'binding' : undefined} title={binding ? `${result.label} binds` : result.label}>
       {formatCount(result.n)}
@@ -35,6 +38,72 @@ function criterionCell(row: ComparisonRow, column: CriterionColumn) {
     </span>
   );
 }
+
+const FIXED_RENDERERS: Readonly<Record<string, CellRenderer>> = {
+  name: (row, invalid) => (
+    <span>
+      {row.name}
+      {invalid ? (
+        <span className="warn-mark" title="A field holds a rejected entry; the row shows the last accepted values.">
+          {' '}
+          ⚠ input to fix
+        </span>
+      ) : null}
+      {row.problem ? <span className="field-error"> {row.problem}</span> : null}
+    </span>
+  ),
+  required: (row) => (
+    <span>
+      <strong>{formatCount(row.requiredN)}</strong>
+      {row.bindingLabel ? <span className="muted small"> ({row.bindingLabel})</span> : null}
+    </span>
+  ),
+  worst: (row) =>
+    row.worstCase === null ? (
+      <span className="muted">no ranges</span>
+    ) : (
+      <span title={row.worstCase.assumption}>
+        {formatCount(row.worstCase.requiredN)} <span className="muted small">({row.worstCase.assumption})</span>
+      </span>
+    ),
+  enrol: (row) => formatCount(row.enrolmentTarget),
+  months: (row) => (row.months === null ? <span className="muted">no accrual given</span> : formatMonths(row.months)),
+  finish: (row) => row.finishDate ?? '—',
+  feasible: (row) => (
+    <span className={`feasibility feasibility-${row.feasibility}`}>
+      {row.feasibility === 'fits' ? '✓ ' : row.feasibility === 'exceeds' ? '✗ ' : ''}
+      {FEASIBILITY_TEXT[row.feasibility]}
+    </span>
+  ),
+};
+
+interface BodyRowProps {
+  readonly row: ComparisonRow;
+  readonly rank: number;
+  readonly selected: boolean;
+  readonly invalid: boolean;
+  readonly columns: readonly { readonly id: string; readonly render: CellRenderer }[];
+  readonly onSelect: (populationId: string) => void;
+}
+
+/** One population's row; memoised, so an edit re-renders only the rows whose data or rank changed. */
+const BodyRow = memo(function BodyRow({ row, rank, selected, invalid, columns, onSelect }: BodyRowProps) {
+  return (
+    <tr
+      data-population-id={row.populationId}
+      className={selected ? 'selected' : undefined}
+      aria-selected={selected}
+      onClick={() => onSelect(row.populationId)}
+    >
+      <td tabIndex={rank === 1 ? 0 : -1}>{rank}</td>
+      {columns.map((column) => (
+        <td key={column.id} tabIndex={-1} data-column={column.id}>
+          {column.render(row, invalid)}
+        </td>
+      ))}
+    </tr>
+  );
+});
 
 export interface ComparisonTableProps {
   readonly rows: readonly ComparisonRow[];
@@ -58,94 +127,39 @@ export function ComparisonTable({
   onOrder,
   invalidIds,
 }: ComparisonTableProps) {
-  const columnsSpec = useMemo(() => criterionColumns(rows), [rows]);
+  const currentSpec = criterionColumns(rows);
+  const specKey = currentSpec.map((c) => `${c.id}|${c.header}|${c.label}|${c.purpose}`).join('\n');
+  // Rebuilt only when the set of criterion columns changes, not on every edit.
+  const columnsSpec = useMemo(() => currentSpec, [specKey]);
+
   const columns = useMemo(
     () =>
       helper.columns([
-        helper.accessor((row) => row.name, {
-          id: 'name',
-          header: 'Population',
-          sortFn: 'text',
-          cell: (info) => (
-            <span>
-              {info.row.original.name}
-              {invalidIds.has(info.row.original.populationId) ? (
-                <span className="warn-mark" title="A field holds a rejected entry; the row shows the last accepted values.">
-                  {' '}
-                  ⚠ input to fix
-                </span>
-              ) : null}
-              {info.row.original.problem ? <span className="field-error"> {info.row.original.problem}</span> : null}
-            </span>
-          ),
-        }),
-        helper.accessor((row) => row.requiredN ?? -1, {
-          id: 'required',
-          header: 'Required n',
-          cell: (info) => (
-            <span>
-              <strong>{formatCount(info.row.original.requiredN)}</strong>
-              {info.row.original.bindingLabel ? <span className="muted small"> ({info.row.original.bindingLabel})</span> : null}
-            </span>
-          ),
-        }),
-        helper.accessor((row) => row.worstCase?.requiredN ?? -1, {
-          id: 'worst',
-          header: 'Worst case n',
-          cell: (info) => {
-            const worst = info.row.original.worstCase;
-            if (worst === null) return <span className="muted">no ranges</span>;
-            return (
-              <span title={worst.assumption}>
-                {formatCount(worst.requiredN)} <span className="muted small">({worst.assumption})</span>
-              </span>
-            );
-          },
-        }),
-        helper.accessor((row) => row.enrolmentTarget ?? -1, {
-          id: 'enrol',
-          header: 'Enrolment target',
-          cell: (info) => formatCount(info.row.original.enrolmentTarget),
-        }),
-        helper.accessor((row) => row.months ?? Number.POSITIVE_INFINITY, {
-          id: 'months',
-          header: 'Months to recruit',
-          cell: (info) =>
-            info.row.original.months === null ? (
-              <span className="muted">no accrual given</span>
-            ) : (
-              formatMonths(info.row.original.months)
-            ),
-        }),
-        helper.accessor((row) => row.finishDate ?? '', {
-          id: 'finish',
-          header: 'Finish',
-          sortFn: 'text',
-          cell: (info) => info.row.original.finishDate ?? '—',
-        }),
-        helper.accessor((row) => ({ fits: 0, unknown: 1, exceeds: 2 })[row.feasibility], {
-          id: 'feasible',
-          header: 'Feasible',
-          cell: (info) => {
-            const f = info.row.original.feasibility;
-            return (
-              <span className={`feasibility feasibility-${f}`}>
-                {f === 'fits' ? '✓ ' : f === 'exceeds' ? '✗ ' : ''}
-                {FEASIBILITY_TEXT[f]}
-              </span>
-            );
-          },
-        }),
+        helper.accessor((row) => row.name, { id: 'name', header: 'Population', sortFn: 'text' }),
+        helper.accessor((row) => row.requiredN ?? -1, { id: 'required', header: 'Required n' }),
+        helper.accessor((row) => row.worstCase?.requiredN ?? -1, { id: 'worst', header: 'Worst case n' }),
+        helper.accessor((row) => row.enrolmentTarget ?? -1, { id: 'enrol', header: 'Enrolment target' }),
+        helper.accessor((row) => row.months ?? Number.POSITIVE_INFINITY, { id: 'months', header: 'Months to recruit' }),
+        helper.accessor((row) => row.finishDate ?? '', { id: 'finish', header: 'Finish', sortFn: 'text' }),
+        helper.accessor((row) => ({ fits: 0, unknown: 1, exceeds: 2 })[row.feasibility], { id: 'feasible', header: 'Feasible' }),
         ...columnsSpec.map((spec) =>
           helper.accessor((row) => row.criteria.find((c) => c.id === spec.id)?.n ?? -1, {
             id: `criterion:${spec.id}`,
             header: () => <span title={spec.label}>{spec.header}</span>,
-            sortUndefined: 'last',
-            cell: (info) => criterionCell(info.row.original, spec),
           }),
         ),
       ]),
-    [columnsSpec, invalidIds],
+    [columnsSpec],
+  );
+  const renderers = useMemo(
+    () => [
+      ...['name', 'required', 'worst', 'enrol', 'months', 'finish', 'feasible'].map((id) => ({
+        id,
+        render: FIXED_RENDERERS[id] as CellRenderer,
+      })),
+      ...columnsSpec.map((spec) => ({ id: `criterion:${spec.id}`, render: (row: ComparisonRow) => criterionCell(row, spec) })),
+    ],
+    [columnsSpec],
   );
 
   const data = useMemo(() => [...rows], [rows]);
@@ -193,6 +207,7 @@ export function ComparisonTable({
   useEffect(() => {
     onOrder?.(orderKey === '' ? [] : orderKey.split('\u0000'));
   }, [orderKey, onOrder]);
+
   return (
     <div className="table-wrap" role="region" aria-label="Comparison of populations" tabIndex={-1}>
       <table ref={gridRef} className="comparison" data-testid="comparison-table" onKeyDown={onKeyDown}>
@@ -224,20 +239,15 @@ export function ComparisonTable({
         </thead>
         <tbody>
           {rendered.map((row, index) => (
-            <tr
+            <BodyRow
               key={row.id}
-              data-population-id={row.id}
-              className={row.id === selectedId ? 'selected' : undefined}
-              aria-selected={row.id === selectedId}
-              onClick={() => onSelect(row.id)}
-            >
-              <td tabIndex={index === 0 ? 0 : -1}>{index + 1}</td>
-              {row.getAllCells().map((cell) => (
-                <td key={cell.id} tabIndex={-1} data-column={cell.column.id}>
-                  <table.FlexRender cell={cell} />
-                </td>
-              ))}
-            </tr>
+              row={row.original}
+              rank={index + 1}
+              selected={row.id === selectedId}
+              invalid={invalidIds.has(row.id)}
+              columns={renderers}
+              onSelect={onSelect}
+            />
           ))}
         </tbody>
         <tfoot>

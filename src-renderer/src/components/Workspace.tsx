@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useDeferredValue, useMemo, useState } from 'react';
 import type { SortingState } from '@tanstack/react-table';
 import type { ContinuousPopulation, Project } from '@shared/model/project';
 import { comparisonTotals, type Planner } from '@shared/summary/comparison';
@@ -32,7 +32,12 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
 
   const cache = useMemo(() => createRowCache(planner), [planner]);
   const rows = useMemo(() => cache.rows(project), [cache, project]);
-  const [orderIds, setOrderIds] = useState<readonly string[]>([]);
+  const [orderIds, setOrderIdsState] = useState<readonly string[]>([]);
+  const setOrderIds = useCallback(
+    (ids: readonly string[]) =>
+      setOrderIdsState((current) => (current.length === ids.length && current.every((id, i) => id === ids[i]) ? current : ids)),
+    [],
+  );
   const order = useMemo(() => orderBy(rows, orderIds), [rows, orderIds]);
   const totals = useMemo(() => comparisonTotals(rows), [rows]);
   const invalidIds = useMemo(
@@ -47,6 +52,11 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
 
   const selected = project.populations.find((p) => p.id === selectedId) ?? project.populations[0] ?? null;
   const selectedRow = rows.find((r) => r.populationId === selected?.id) ?? null;
+  // The charts take their inputs at a lower priority: the table and the editor answer an edit at
+  // once, and the charts follow as soon as the browser is free.
+  const chartOrder = useDeferredValue(order);
+  const chartSelected = useDeferredValue(selected);
+  const chartUpdating = useDeferredValue(project.updating);
 
   const replacePopulation = useCallback(
     (label: string, next: ContinuousPopulation) =>
@@ -108,11 +118,15 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
       </section>
       <div className="lower">
         <div className="charts">
-          {rows.length > 0 ? <CriterionBars rows={order} selectedId={selected?.id ?? null} /> : null}
-          {rows.length > 0 ? (
-            <RecruitmentTimeline rows={order} windowMonths={project.study.windowMonths} selectedId={selected?.id ?? null} />
+          {chartOrder.length > 0 ? <CriterionBars rows={chartOrder} selectedId={chartSelected?.id ?? null} /> : null}
+          {chartOrder.length > 0 ? (
+            <RecruitmentTimeline
+              rows={chartOrder}
+              windowMonths={project.study.windowMonths}
+              selectedId={chartSelected?.id ?? null}
+            />
           ) : null}
-          {selected ? <SensitivityChart population={selected} project={project} planner={planner} /> : null}
+          {chartSelected ? <SensitivityChart population={chartSelected} updating={chartUpdating} planner={planner} /> : null}
         </div>
         {selected ? (
           <div className="side">
@@ -125,10 +139,13 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
               onChange={replacePopulation}
               onInvalid={(path, message) =>
                 setInvalid((current) => {
-                  const fields = { ...(current[selected.id] ?? {}) };
-                  if (message === null) delete fields[path];
-                  else fields[path] = message;
-                  return { ...current, [selected.id]: fields };
+                  const fields = current[selected.id] ?? {};
+                  // Keep the same object when nothing changes, so the screen is not re-rendered for nothing.
+                  if ((message === null && !(path in fields)) || (message !== null && fields[path] === message)) return current;
+                  const next = { ...fields };
+                  if (message === null) delete next[path];
+                  else next[path] = message;
+                  return { ...current, [selected.id]: next };
                 })
               }
               onDuplicate={() => {
