@@ -1,4 +1,5 @@
 import { DomainError } from '../errors';
+import { createBinaryDesign } from './binary-design';
 import { createContinuousDesign } from './continuous-design';
 import { SIMULATION_ENGINE_VERSION } from './engine-version';
 import { MeasureTally } from './measure-tally';
@@ -11,7 +12,9 @@ import type { ReplicateOutcome, SimulationProgress, SimulationResult } from './t
 export interface Simulation {
   /**
    * Runs at most `maxReplicates` more replicates, and never more than the configured
-   * maxObservationsPerStep observations, then returns. A replicate cut off by the observation
+   * maxObservationsPerStep observations (in continuous-observation equivalents: a binary
+   * observation, with its share of the fitting, counts about ten), then returns. The step that
+   * completes a replicate also fits it. A replicate cut off by the observation
    * budget is continued by the next call, so one call stays short even when n is large; the
    * numbers do not depend on how the run is split. After the last replicate it returns done.
    * Pass Infinity to let the observation budget alone decide the chunk.
@@ -42,6 +45,9 @@ function emptyOutcome(measures: number): ReplicateOutcome {
  * or complete). With the default budget of 250,000 observations a step takes a few milliseconds.
  * Reproducible: replicate r always uses the r-th jump of xoroshiro128plus(seed) (see
  * replicateStreams), and the result stores the seed, the replicate count and the engine version.
+ * The stream is integer arithmetic; Math.exp/log/sqrt/atanh/tanh (the samplers' rare slow path
+ * and the estimators) are IEEE-correct enough that results are reproducible across V8 builds to
+ * the printed precision. Math.random is never used.
  * The config is validated first (parseSimulationConfig): a bad field throws a DomainError naming it.
  * @example
  * const sim = createSimulation({ outcome: 'continuous', population: { rSquared: 0.8, outcomeVariance: 100 },
@@ -50,7 +56,7 @@ function emptyOutcome(measures: number): ReplicateOutcome {
  */
 export function createSimulation(input: SimulationConfigInput): Simulation {
   const config = parseSimulationConfig(input);
-  const design = createContinuousDesign(config);
+  const design = config.outcome === 'binary' ? createBinaryDesign(config) : createContinuousDesign(config);
   const { n, replicates, seed, maxObservationsPerStep } = config;
   const measureCount = design.measures.length;
   const tallies = design.measures.map((m) => new MeasureTally(m));
@@ -106,19 +112,21 @@ export function createSimulation(input: SimulationConfigInput): Simulation {
     return progress();
   };
 
-  const result = (): SimulationResult => ({
-    engineVersion: SIMULATION_ENGINE_VERSION,
-    outcome: config.outcome,
-    seed,
-    n,
-    population: config.population,
-    targets: config.targets,
-    replicatesRequested: replicates,
-    replicatesDone,
-    partial: replicatesDone < replicates,
-    confidence: config.targets.confidence,
-    measures: tallies.map((t) => t.summary()),
-  });
+  const result = (): SimulationResult => {
+    const common = {
+      engineVersion: SIMULATION_ENGINE_VERSION,
+      seed,
+      n,
+      replicatesRequested: replicates,
+      replicatesDone,
+      partial: replicatesDone < replicates,
+      confidence: config.targets.confidence,
+      measures: tallies.map((t) => t.summary()),
+    };
+    return config.outcome === 'binary'
+      ? { ...common, outcome: 'binary', population: config.population, targets: config.targets }
+      : { ...common, outcome: 'continuous', population: config.population, targets: config.targets };
+  };
 
   return { step, progress, result };
 }

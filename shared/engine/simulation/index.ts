@@ -3,7 +3,14 @@ export { createSimulation } from './create-simulation';
 export type { Simulation } from './create-simulation';
 export { SIMULATION_ENGINE_VERSION } from './engine-version';
 export { parseSimulationConfig, SIMULATION_LIMITS } from './simulation-config';
-export type { SimulationConfig, SimulationConfigInput } from './simulation-config';
+export type {
+  BinarySimulationConfig,
+  BinarySimulationConfigInput,
+  ContinuousSimulationConfig,
+  ContinuousSimulationConfigInput,
+  SimulationConfig,
+  SimulationConfigInput,
+} from './simulation-config';
 export { simulationVerdict } from './simulation-verdict';
 export type {
   ClosedFormReference,
@@ -12,4 +19,13 @@ export type {
   SimulationVerdict,
   VerdictStatus,
 } from './simulation-verdict';
-export type { IntervalScale, MeasureId, MeasureSummary, MonteCarloEstimate, SimulationProgress, SimulationResult } from './types';
+export type {
+  BinarySimulationResult,
+  ContinuousSimulationResult,
+  IntervalScale,
+  MeasureId,
+  MeasureSummary,
+  MonteCarloEstimate,
+  SimulationProgress,
+  SimulationResult,
+} from './types';

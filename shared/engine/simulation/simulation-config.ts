@@ -4,14 +4,20 @@ import { z } from 'zod';
 import { DomainError } from '../errors';
 import { formatCount } from '../../format/numbers';
 
-/** Largest n per replicate and replicate count; their product is capped too (see below). */
+/** Bounds on n, replicates and chunking; the product n × replicates is capped too (see below). */
 export const SIMULATION_LIMITS = {
   minN: 4,
   maxN: 10_000_000,
+  /** Binary: below 10 a logistic fit is rarely possible; above 100,000 fitting one replicate (a
+   * sort and Newton–Raphson passes over n values) would take longer than a step should. */
+  minBinaryN: 10,
+  maxBinaryN: 100_000,
   minReplicates: 2,
   maxReplicates: 1_000_000,
   /** n × replicates: about ten minutes on one core at the 20 million observations/s target. */
   maxObservations: 10_000_000_000,
+  /** Binary observations cost several times more (fitting, sorting): about the same time budget. */
+  maxBinaryObservations: 2_000_000_000,
   minObservationsPerStep: 1_000,
   maxObservationsPerStep: 10_000_000,
   /** About 5–13 ms on one core at 20–45 million observations/s: keeps a cancel well under 200 ms. */
@@ -51,32 +57,81 @@ export const continuousSimulationTargetsSchema = z.object({
   residualSd: z.object({ marginFactor: between('a number greater than 1 and at most 10', (v) => v > 1 && v <= 10) }),
 });
 
-export const continuousSimulationConfigSchema = z
-  .object({
-    outcome: z.literal('continuous', { error: 'the text "continuous"' }),
-    population: continuousSimulationPopulationSchema,
-    n: wholeNumber(SIMULATION_LIMITS.minN, SIMULATION_LIMITS.maxN),
-    replicates: wholeNumber(SIMULATION_LIMITS.minReplicates, SIMULATION_LIMITS.maxReplicates),
-    /** Any 32-bit unsigned integer; stored with the result so the run can be repeated exactly. */
-    seed: wholeNumber(0, 4_294_967_295),
-    targets: continuousSimulationTargetsSchema,
-    /** Most observations simulated by one `step` call (bounds the time a cancel waits). */
-    maxObservationsPerStep: wholeNumber(
-      SIMULATION_LIMITS.minObservationsPerStep,
-      SIMULATION_LIMITS.maxObservationsPerStep,
-    ).default(SIMULATION_LIMITS.defaultObservationsPerStep),
-  })
-  .refine((c) => c.n * c.replicates <= SIMULATION_LIMITS.maxObservations, {
-    error: `at most ${formatCount(SIMULATION_LIMITS.maxObservations)} simulated observations in all (n × replicates)`,
-    path: ['replicates'],
-  });
+/**
+ * A run of one outcome type: its population and targets, n within [minN, maxN], the replicate
+ * count, the seed and the step budget; n × replicates at most `maxObservations`.
+ */
+function runSchema<O extends string, P extends z.ZodType, T extends z.ZodType>(
+  outcome: O,
+  population: P,
+  targets: T,
+  nRange: readonly [number, number],
+  maxObservations: number,
+) {
+  return z
+    .object({
+      outcome: z.literal(outcome, { error: 'the text "continuous" or "binary"' }),
+      population,
+      n: wholeNumber(nRange[0], nRange[1]),
+      replicates: wholeNumber(SIMULATION_LIMITS.minReplicates, SIMULATION_LIMITS.maxReplicates),
+      /** Any 32-bit unsigned integer; stored with the result so the run can be repeated exactly. */
+      seed: wholeNumber(0, 4_294_967_295),
+      targets,
+      /** Most observations simulated by one `step` call (bounds the time a cancel waits); a binary
+       * observation counts about ten (see SimulationDesign.workPerObservation). */
+      maxObservationsPerStep: wholeNumber(
+        SIMULATION_LIMITS.minObservationsPerStep,
+        SIMULATION_LIMITS.maxObservationsPerStep,
+      ).default(SIMULATION_LIMITS.defaultObservationsPerStep),
+    })
+    .refine((c) => c.n * c.replicates <= maxObservations, {
+      error: `at most ${formatCount(maxObservations)} simulated observations in all (n × replicates)`,
+      path: ['replicates'],
+    });
+}
+
+export const continuousSimulationConfigSchema = runSchema(
+  'continuous',
+  continuousSimulationPopulationSchema,
+  continuousSimulationTargetsSchema,
+  [SIMULATION_LIMITS.minN, SIMULATION_LIMITS.maxN],
+  SIMULATION_LIMITS.maxObservations,
+);
+
+export const binarySimulationPopulationSchema = z.object({
+  /** Mean of the model's linear predictor (log-odds) in the target population. */
+  lpMean: between('a number from -50 to 50', (v) => Math.abs(v) <= 50),
+  /** SD of the linear predictor. */
+  lpSd: between('a number greater than 0 and at most 20', (v) => v > 0 && v <= 20),
+  /** Calibration model logit P(Y = 1) = intercept + slope·LP; defaults 0 and 1 (well calibrated). */
+  calibrationIntercept: between('a number from -50 to 50', (v) => Math.abs(v) <= 50).default(0),
+  calibrationSlope: between('a number greater than 0 and at most 100', (v) => v > 0 && v <= 100).default(1),
+});
+
+export const binarySimulationTargetsSchema = z.object({
+  confidence: between(OPEN_UNIT, (v) => v > 0 && v < 1),
+  /** Multiplicative margin of the O/E interval, exp(z·SE*(ln O/E)); e.g. 1.105 for a width of 0.2 around 1. */
+  oe: z.object({ marginFactor: between('a number greater than 1 and at most 10', (v) => v > 1 && v <= 10) }),
+  slope: z.object({ width: between('a positive finite number', (v) => v > 0) }),
+  cStatistic: z.object({ width: between('a positive finite number', (v) => v > 0) }),
+});
+
+export const binarySimulationConfigSchema = runSchema(
+  'binary',
+  binarySimulationPopulationSchema,
+  binarySimulationTargetsSchema,
+  [SIMULATION_LIMITS.minBinaryN, SIMULATION_LIMITS.maxBinaryN],
+  SIMULATION_LIMITS.maxBinaryObservations,
+);
 
 export type ContinuousSimulationConfig = z.infer<typeof continuousSimulationConfigSchema>;
 export type ContinuousSimulationConfigInput = z.input<typeof continuousSimulationConfigSchema>;
+export type BinarySimulationConfig = z.infer<typeof binarySimulationConfigSchema>;
+export type BinarySimulationConfigInput = z.input<typeof binarySimulationConfigSchema>;
 
-/** Every outcome type a simulation can run (binary joins this union). */
-export type SimulationConfig = ContinuousSimulationConfig;
-export type SimulationConfigInput = ContinuousSimulationConfigInput;
+/** Every outcome type a simulation can run, told apart by `outcome`. */
+export type SimulationConfig = ContinuousSimulationConfig | BinarySimulationConfig;
+export type SimulationConfigInput = ContinuousSimulationConfigInput | BinarySimulationConfigInput;
 
 function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
   let here: unknown = input;
@@ -95,7 +150,9 @@ function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
  * @example parseSimulationConfig({ ...config, n: 2.5 }) // throws DomainError: n = 2.5 is outside its allowed range: a whole number from 4 to 10,000,000
  */
 export function parseSimulationConfig(input: unknown): SimulationConfig {
-  const parsed = continuousSimulationConfigSchema.safeParse(input);
+  const outcome = valueAt(input, ['outcome']);
+  const schema = outcome === 'binary' ? binarySimulationConfigSchema : continuousSimulationConfigSchema;
+  const parsed = schema.safeParse(input);
   if (parsed.success) return parsed.data;
   const issue = parsed.error.issues[0];
   const path = issue?.path ?? [];

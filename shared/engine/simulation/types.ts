@@ -1,6 +1,6 @@
 // Shapes shared by the simulation driver, the outcome-specific designs and the verdict.
 import type { RandomStream } from './random-stream';
-import type { ContinuousSimulationConfig } from './simulation-config';
+import type { BinarySimulationConfig, ContinuousSimulationConfig } from './simulation-config';
 
 /** Measures a simulation can track (continuous now; the binary design adds its own ids). */
 export type MeasureId =
@@ -96,15 +96,11 @@ export interface SimulationProgress {
   readonly done: boolean;
 }
 
-export interface SimulationResult {
+interface SimulationResultBase {
   /** Version of the simulation engine; results are reproducible from the seed within one version. */
   readonly engineVersion: string;
-  readonly outcome: 'continuous';
   readonly seed: number;
   readonly n: number;
-  /** The anticipated values simulated, defaults filled in. */
-  readonly population: ContinuousSimulationConfig['population'];
-  readonly targets: ContinuousSimulationConfig['targets'];
   readonly replicatesRequested: number;
   /** Completed replicates summarised here (a replicate cut off by a cancel is left out). */
   readonly replicatesDone: number;
@@ -113,3 +109,18 @@ export interface SimulationResult {
   readonly confidence: number;
   readonly measures: readonly MeasureSummary[];
 }
+
+export interface ContinuousSimulationResult extends SimulationResultBase {
+  readonly outcome: 'continuous';
+  /** The anticipated values simulated, defaults filled in. */
+  readonly population: ContinuousSimulationConfig['population'];
+  readonly targets: ContinuousSimulationConfig['targets'];
+}
+
+export interface BinarySimulationResult extends SimulationResultBase {
+  readonly outcome: 'binary';
+  readonly population: BinarySimulationConfig['population'];
+  readonly targets: BinarySimulationConfig['targets'];
+}
+
+export type SimulationResult = ContinuousSimulationResult | BinarySimulationResult;

@@ -87,3 +87,28 @@ describe('the plain-language verdict', () => {
     expect(simulationVerdict(sim.result()).headline).toMatch(/^Partial result: 250 of 1,000 replicates completed \(seed 3\)\./);
   });
 });
+
+describe('the verdict for a binary simulation', () => {
+  it('at the O/E closed-form n (phi 0.1, SE* 0.051 → 3,461) reads the O/E margin against its target', () => {
+    const z = 1.959963984540054;
+    const margin = Math.exp(z * 0.051); // target margin for SE(ln O/E) = 0.051 (methods reference 1.2)
+    const result = runToEnd(
+      createSimulation({
+        outcome: 'binary',
+        population: { lpMean: -2.776998, lpSd: 1.288257 },
+        n: 3461, // methods reference 5.1 check value (scipy)
+        replicates: 200,
+        seed: 3461,
+        targets: { confidence: 0.95, oe: { marginFactor: margin }, slope: { width: 0.2 }, cStatistic: { width: 0.1 } },
+      }),
+    );
+    const verdict = simulationVerdict(result, { 'observed-expected': { n: 3461 } });
+    const oe = verdict.measures.find((m) => m.measureId === 'observed-expected');
+    expect(['meets-on-average', 'within-simulation-error']).toContain(oe?.status);
+    expect(oe?.text).toMatch(
+      /^At n = 3,461, \d+(\.\d)?% \(±\d\.\d%\) of simulated studies met the O\/E \(observed over expected events\) margin target; the mean margin was ÷\/× 1\.10\d against the target 1\.105 — the closed-form n delivers the target on average/,
+    );
+    expect(verdict.measures.find((m) => m.measureId === 'binary-slope')?.status).toBe('falls-short');
+    expect(verdict.headline).toContain('Missed on average: calibration slope.');
+  });
+});
