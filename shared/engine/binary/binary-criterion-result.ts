@@ -2,7 +2,7 @@
 // expected number of events at that n (planners think in events).
 import type { SampleSize } from '../continuous/sample-size';
 import { BEYOND_LIMIT_REASON } from '../continuous/sample-size-limit';
-import type { CriterionPurpose, CriterionResult, Intermediate, ReferenceKey } from '../types';
+import type { CriterionPurpose, CriterionResult, CriterionStatus, Intermediate, ReferenceKey } from '../types';
 import type { BinaryCriterionId } from './binary-criterion-ids';
 
 /** What a binary criterion says about itself, independent of the inputs. */
@@ -14,17 +14,50 @@ export interface BinaryCriterionText {
   readonly references: readonly ReferenceKey[];
 }
 
-/** A sized criterion; `outcomeProportion` gives the expected events n·phi as the last intermediate. */
+// Every result is built by this one literal, so all share one object shape; `reason` is present
+// but undefined when there is none.
+function result(
+  text: BinaryCriterionText,
+  target: string,
+  status: CriterionStatus,
+  n: number | null,
+  intermediates: readonly Intermediate[],
+  reason: string | undefined,
+): CriterionResult {
+  return {
+    id: text.id,
+    label: text.label,
+    purpose: text.purpose,
+    status,
+    n,
+    reason,
+    target,
+    formula: text.formula,
+    references: text.references,
+    intermediates,
+  };
+}
+
+/**
+ * A sized criterion; the expected events n·phi at its n are appended to `intermediates` (which the
+ * caller hands over: it is not copied).
+ */
 export function binarySizedCriterion(
   text: BinaryCriterionText,
   target: string,
   size: SampleSize,
-  intermediates: readonly Intermediate[],
+  intermediates: Intermediate[],
   outcomeProportion: number,
 ): CriterionResult {
-  const events = size.n === null ? [] : [{ name: 'expected events at n', value: size.n * outcomeProportion }];
-  const base = { ...text, target, intermediates: [...intermediates, ...events], status: size.status, n: size.n };
-  return size.status === 'not-converged' ? { ...base, reason: BEYOND_LIMIT_REASON } : base;
+  if (size.n !== null) intermediates.push({ name: 'expected events at n', value: size.n * outcomeProportion });
+  return result(
+    text,
+    target,
+    size.status,
+    size.n,
+    intermediates,
+    size.status === 'not-converged' ? BEYOND_LIMIT_REASON : undefined,
+  );
 }
 
 /** A criterion that cannot be computed: an input it needs is missing ('not-assessable') or a numerical step failed ('not-converged'). */
@@ -35,5 +68,5 @@ export function binaryUnsizedCriterion(
   reason: string,
   intermediates: readonly Intermediate[] = [],
 ): CriterionResult {
-  return { ...text, target, intermediates, status, n: null, reason };
+  return result(text, target, status, null, intermediates, reason);
 }

@@ -21,6 +21,22 @@ const densityCache = new Map<number, Float64Array>();
  * @example lpCStatistic({ mean: -2.7769973, sd: 1.2882557 }, { intercept: 0, slope: 1 }) // 0.8000000
  */
 export function lpCStatistic(lp: NormalLp, calibration: Calibration): number {
+  return lpCStatisticAndProportion(lp, calibration).cStatistic;
+}
+
+/** The C-statistic and, from the same grid, the outcome proportion E[p]. */
+export interface LpDiscrimination {
+  readonly cStatistic: number;
+  /** ∫ φ(z)·p dz by the trapezoid rule on the same grid (spectrally accurate for this smooth integrand: ~1e−15). */
+  readonly outcomeProportion: number;
+}
+
+/**
+ * lpCStatistic and the outcome proportion E[expit(a + b·LP)] in one pass over the grid (the fit of
+ * the LP to (phi, C) needs both at every step). Domain and accuracy as lpCStatistic.
+ * @example lpCStatisticAndProportion({ mean: -2.7769973, sd: 1.2882557 }, { intercept: 0, slope: 1 }).outcomeProportion // 0.1000000
+ */
+export function lpCStatisticAndProportion(lp: NormalLp, calibration: Calibration): LpDiscrimination {
   if (!(calibration.slope > 0) || !Number.isFinite(calibration.slope)) {
     throw new DomainError(
       'calibration slope',
@@ -36,40 +52,57 @@ export function lpCStatistic(lp: NormalLp, calibration: Calibration): number {
   const intervals = 400 * Math.ceil(Math.max(1, spread) / 1.5);
   const density = gridDensity(intervals);
   const h = (2 * GRID_HALF_WIDTH) / intervals;
-  // Running sums for the three nested grids (steps h, 2h, 4h): normalising constants of f₁ and f₀,
-  // the cumulative trapezoid of f₀, and the trapezoid of f₁·F₀.
-  const events = [0, 0, 0];
-  const nonEvents = [0, 0, 0];
-  const cumulative = [0, 0, 0];
-  const product = [0, 0, 0];
-  const previousNonEvent = [0, 0, 0];
+  // Running sums on the three nested grids (steps h, 2h, 4h; suffixes 1, 2, 4): the trapezoid
+  // integrals of f₁ and f₀ (unnormalised), the cumulative trapezoid of f₀, and the trapezoid of f₁·F₀.
+  let ev1 = 0,
+    ne1 = 0,
+    cum1 = 0,
+    prod1 = 0,
+    prev1 = 0;
+  let ev2 = 0,
+    ne2 = 0,
+    cum2 = 0,
+    prod2 = 0,
+    prev2 = 0;
+  let ev4 = 0,
+    ne4 = 0,
+    cum4 = 0,
+    prod4 = 0,
+    prev4 = 0;
   for (let k = 0; k <= intervals; k++) {
     const x = centre + spread * (-GRID_HALF_WIDTH + k * h);
     const e = Math.exp(-Math.abs(x));
-    const p = x >= 0 ? 1 / (1 + e) : e / (1 + e);
-    const q = x >= 0 ? e / (1 + e) : 1 / (1 + e);
-    const f = density[k] ?? 0;
-    const fe = f * p;
-    const fn = f * q;
-    const endWeight = k === 0 || k === intervals ? 0.5 : 1;
-    for (let level = 0; level < 3; level++) {
-      const stride = 1 << level;
-      if (k % stride !== 0) continue;
-      const step = h * stride;
-      if (k > 0) cumulative[level] = (cumulative[level] ?? 0) + 0.5 * step * ((previousNonEvent[level] ?? 0) + fn);
-      previousNonEvent[level] = fn;
-      events[level] = (events[level] ?? 0) + endWeight * step * fe;
-      nonEvents[level] = (nonEvents[level] ?? 0) + endWeight * step * fn;
-      product[level] = (product[level] ?? 0) + endWeight * step * fe * (cumulative[level] ?? 0);
+    const f = (density[k] ?? 0) / (1 + e);
+    const fe = x >= 0 ? f : f * e;
+    const fn = x >= 0 ? f * e : f;
+    const end = k === 0 || k === intervals ? 0.5 : 1;
+    if (k > 0) cum1 += 0.5 * (prev1 + fn);
+    prev1 = fn;
+    ev1 += end * fe;
+    ne1 += end * fn;
+    prod1 += end * fe * cum1;
+    if ((k & 1) === 0) {
+      if (k > 0) cum2 += 0.5 * (prev2 + fn);
+      prev2 = fn;
+      ev2 += end * fe;
+      ne2 += end * fn;
+      prod2 += end * fe * cum2;
+      if ((k & 3) === 0) {
+        if (k > 0) cum4 += 0.5 * (prev4 + fn);
+        prev4 = fn;
+        ev4 += end * fe;
+        ne4 += end * fn;
+        prod4 += end * fe * cum4;
+      }
     }
   }
-  const estimate = (level: number): number => (product[level] ?? 0) / ((events[level] ?? 0) * (nonEvents[level] ?? 0));
-  const fine = estimate(0);
-  const middle = estimate(1);
-  const coarse = estimate(2);
+  // With step H on a level, C = (H²·prod)/((H·ev)(H·ne)) = prod/(ev·ne): the step cancels.
+  const fine = prod1 / (ev1 * ne1);
+  const middle = prod2 / (ev2 * ne2);
+  const coarse = prod4 / (ev4 * ne4);
   const r1Fine = (4 * fine - middle) / 3;
   const r1Coarse = (4 * middle - coarse) / 3;
-  return (16 * r1Fine - r1Coarse) / 15;
+  return { cStatistic: (16 * r1Fine - r1Coarse) / 15, outcomeProportion: ev1 / (ev1 + ne1) };
 }
 
 /** Standard normal density on the grid −10 + k·h, k = 0…M (cached per M). */

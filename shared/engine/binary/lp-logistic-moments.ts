@@ -11,15 +11,36 @@ export interface LpLogisticMoments {
   readonly i11: number;
 }
 
+let last: {
+  readonly rule: NormalQuadratureRule;
+  readonly mean: number;
+  readonly sd: number;
+  readonly intercept: number;
+  readonly slope: number;
+  readonly moments: LpLogisticMoments;
+} | null = null;
+
 /**
  * E[p], E[w], E[w·LP], E[w·LP²] for LP = mean + sd·Z, p = expit(α + β·LP), w = p(1 − p), by the
  * given quadrature rule for Z ~ N(0, 1) (see lpQuadratureRule). One exponential per node; p and w
- * are formed without cancellation in either tail.
+ * are formed without cancellation in either tail. The last result is remembered (same inputs, same
+ * rule object → same answer).
  * Domain: finite inputs and a converged rule (the callers check). Source: METHODS 5.2 [DERIVED].
  * Accuracy: that of the rule.
  * @example lpLogisticMoments({ mean: 0, sd: 1 }, { intercept: 0, slope: 1 }, gaussHermiteRule(200)).outcomeProportion // 0.5
  */
 export function lpLogisticMoments(lp: NormalLp, calibration: Calibration, rule: NormalQuadratureRule): LpLogisticMoments {
+  // A plan asks for the same moments twice (the slope criterion and the LP summary): remember the last.
+  if (
+    last !== null &&
+    last.rule === rule &&
+    last.mean === lp.mean &&
+    last.sd === lp.sd &&
+    last.intercept === calibration.intercept &&
+    last.slope === calibration.slope
+  ) {
+    return last.moments;
+  }
   const { nodes, weights } = rule;
   const a = calibration.intercept + calibration.slope * lp.mean;
   const b = calibration.slope * lp.sd;
@@ -40,5 +61,7 @@ export function lpLogisticMoments(lp: NormalLp, calibration: Calibration, rule: 
     i11 += ww * x * x;
     phi += wk * p;
   }
-  return { outcomeProportion: phi, i00, i01, i11 };
+  const moments = { outcomeProportion: phi, i00, i01, i11 };
+  last = { rule, mean: lp.mean, sd: lp.sd, intercept: calibration.intercept, slope: calibration.slope, moments };
+  return moments;
 }

@@ -35,11 +35,11 @@ export interface NetBenefitInputs {
 /** Computed sensitivities or specificities this close to 0 or 1 make the criterion degenerate. */
 const DEGENERATE = 1e-6;
 
-function text(inputs: NetBenefitInputs): BinaryCriterionText {
+function text(inputs: NetBenefitInputs, threshold: string): BinaryCriterionText {
   const which = inputs.standardised ? 'standardised net benefit' : 'net benefit';
   return {
     id: netBenefitId(inputs.threshold),
-    label: `Precise ${which} at threshold ${formatSignificant(inputs.threshold)}`,
+    label: `Precise ${which} at threshold ${threshold}`,
     purpose: 'validation',
     formula: inputs.standardised
       ? 'n = n·Var(sNB)/SE*², n·Var(sNB) = sens(1 − sens)/phi + w²spec(1 − spec)(1 − phi)/phi² + w²(1 − spec)²(1 − phi)/phi³, w = t/(1 − t)'
@@ -88,9 +88,9 @@ function classification(
   return { variance, outcomeProportion, intermediates };
 }
 
-function targetText(inputs: NetBenefitInputs): string {
+function targetText(inputs: NetBenefitInputs, threshold: string): string {
   const which = inputs.standardised ? 'standardised net benefit' : 'net benefit';
-  return `${levelText(inputs.confidence)} CI width for the ${which} at threshold ${formatSignificant(inputs.threshold)} ≤ ${formatSignificant(inputs.width)}`;
+  return `${levelText(inputs.confidence)} CI width for the ${which} at threshold ${threshold} ≤ ${formatSignificant(inputs.width)}`;
 }
 
 /**
@@ -98,8 +98,9 @@ function targetText(inputs: NetBenefitInputs): string {
  * @example netBenefitCriterion({ threshold: 0.1, sensitivity: 0.8, specificity: 0.7, outcomeProportion: 0.1, standardised: true, width: 0.2, … }).n // 1089
  */
 export function netBenefitCriterion(inputs: NetBenefitInputs): CriterionResult {
-  const t = text(inputs);
-  const target = targetText(inputs);
+  const threshold = formatSignificant(inputs.threshold);
+  const t = text(inputs, threshold);
+  const target = targetText(inputs, threshold);
   const c = classification(inputs);
   if ('status' in c) return binaryUnsizedCriterion(t, target, c.status, c.reason);
   const targetSe = seFromCiWidth(inputs.width, inputs.confidence);
@@ -126,7 +127,7 @@ export function netBenefitCriterion(inputs: NetBenefitInputs): CriterionResult {
  */
 export function netBenefitPrecisionAtN(inputs: NetBenefitInputs, n: number): PrecisionAtN {
   requireCount('n', n, 1);
-  const t = text(inputs);
+  const t = text(inputs, formatSignificant(inputs.threshold));
   const base = { id: t.id, label: t.label, n, targetValue: inputs.width, scale: `${levelText(inputs.confidence)} CI width` };
   const c = classification(inputs);
   if ('status' in c) return { ...base, se: null, achieved: null, meets: null, reason: c.reason };
