@@ -103,7 +103,7 @@ export const contract = {
   },
   closePlan: {
     request: z.object({ path: filePath.nullable(), documentId }).strict(),
-    response: z.object({ lockReleased: z.boolean(), recoveryDiscarded: z.boolean() }),
+    response: z.object({ lockReleased: z.boolean(), recoveryDiscarded: z.boolean(), warnings: z.array(z.string()) }),
   },
   autosave: {
     request: z.object({ documentId, path: filePath.nullable(), project: projectSchema }).strict(),
