@@ -46,8 +46,10 @@ export const savePlan: Handler<'savePlan'> = async (request, ctx) => {
   };
 };
 
-export const closePlan: Handler<'closePlan'> = async (request, ctx) =>
-  unwrap(await storeFor(ctx).close(request.path, request.documentId));
+export const closePlan: Handler<'closePlan'> = async (request, ctx) => {
+  const closed = unwrap(await storeFor(ctx).close(request.path, request.documentId));
+  return { lockReleased: closed.lockReleased, recoveryDiscarded: closed.recoveryDiscarded, warnings: [...closed.warnings] };
+};
 
 export const autosave: Handler<'autosave'> = async (request, ctx) => {
   const written = unwrap(await storeFor(ctx).autosave(request.documentId, request.path, request.project));
