@@ -13,7 +13,7 @@ async function demoProject(): Promise<Project> {
 /** Population names in the order the engine ranks them (required n, largest first). */
 function engineRanking(project: Project): { name: string; requiredN: number | null; binding: string | null }[] {
   return project.populations
-    .map((p) => ({ name: p.name, ...planPopulation(p, project) }))
+    .map((p) => ({ ...planPopulation(p, project), name: p.name }))
     .sort((a, b) => (b.requiredN ?? -1) - (a.requiredN ?? -1))
     .map(({ name, requiredN, binding }) => ({ name, requiredN, binding }));
 }
