@@ -1,7 +1,6 @@
 // Development criterion (ii) for a binary outcome: small optimism in Nagelkerke R² [DEV-BIN-SURV].
 import { formatSignificant } from '../../format/numbers';
 import { closedFormShrinkageN } from '../continuous/closed-form-shrinkage';
-import { withinTarget } from '../continuous/precision-tolerance';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import type { BinaryCriterionText } from './binary-criterion-result';
 import type { BinaryDevelopmentInputs } from './binary-development-inputs';
@@ -55,10 +54,10 @@ export function developmentOptimismCriterion(inputs: BinaryDevelopmentInputs): C
  * @example developmentOptimismPrecisionAtN({ predictorParameters: 24, coxSnellR2: 0.288, outcomeProportion: 0.174, … }, 400).achieved // 0.081552
  */
 export function developmentOptimismPrecisionAtN(inputs: BinaryDevelopmentInputs, n: number): PrecisionAtN {
+  requireDevelopmentInputs(inputs);
   const max = maxCoxSnellR2(inputs.outcomeProportion);
-  const target = { value: inputs.optimismMargin, scale: 'expected optimism in Nagelkerke R²' };
-  return precisionFromExpectedShrinkage(TEXT, inputs, n, target, (s) => {
-    const achieved = (inputs.coxSnellR2 * (1 - s)) / (s * max);
-    return { achieved, meets: withinTarget(achieved, inputs.optimismMargin) };
-  });
+  const needed = shrinkageForNagelkerkeOptimism(inputs.coxSnellR2, inputs.outcomeProportion, inputs.optimismMargin);
+  const raw = closedFormShrinkageN(inputs.predictorParameters, inputs.coxSnellR2, needed);
+  const target = { value: inputs.optimismMargin, scale: 'expected optimism in Nagelkerke R²', raw };
+  return precisionFromExpectedShrinkage(TEXT, inputs, n, target, (s) => (inputs.coxSnellR2 * (1 - s)) / (s * max));
 }

@@ -1,7 +1,6 @@
 // Development criterion (i) for a binary outcome: expected global shrinkage at least S [DEV-BIN-SURV].
 import { formatSignificant } from '../../format/numbers';
 import { closedFormShrinkageN } from '../continuous/closed-form-shrinkage';
-import { atLeastTarget } from '../continuous/precision-tolerance';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import type { BinaryCriterionText } from './binary-criterion-result';
 import type { BinaryDevelopmentInputs } from './binary-development-inputs';
@@ -40,9 +39,7 @@ export function developmentShrinkageCriterion(inputs: BinaryDevelopmentInputs): 
  * @example developmentShrinkagePrecisionAtN({ predictorParameters: 24, coxSnellR2: 0.288, … }, 400).achieved // 0.854111
  */
 export function developmentShrinkagePrecisionAtN(inputs: BinaryDevelopmentInputs, n: number): PrecisionAtN {
-  const target = { value: inputs.targetShrinkage, scale: 'expected shrinkage factor (at least)' };
-  return precisionFromExpectedShrinkage(TEXT, inputs, n, target, (s) => ({
-    achieved: s,
-    meets: atLeastTarget(s, inputs.targetShrinkage),
-  }));
+  const raw = closedFormShrinkageN(inputs.predictorParameters, inputs.coxSnellR2, inputs.targetShrinkage);
+  const target = { value: inputs.targetShrinkage, scale: 'expected shrinkage factor (at least)', raw };
+  return precisionFromExpectedShrinkage(TEXT, inputs, n, target, (s) => s);
 }

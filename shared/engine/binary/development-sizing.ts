@@ -31,14 +31,16 @@ export function sizedDevelopmentCriterion(
 /**
  * Precision at a fixed n for a measure that follows from the expected shrinkage S(n) (the S in
  * (R²_CS, 1) with n = P/((S − 1)·ln(1 − R²_CS/S)), by Brent's method; METHODS 4, inverse).
- * `measure` turns S into the achieved value and whether it meets the target.
+ * `achieved` turns S into the value shown. Whether n meets the target is decided by comparing n
+ * with the criterion's own rounded size ⌈raw − 1e−9⌉, not S with its target: near S = 1 a tiny
+ * slack in S spans many values of n, and this way the inverse agrees with the criterion exactly.
  */
 export function precisionFromExpectedShrinkage(
   text: BinaryCriterionText,
   inputs: BinaryDevelopmentInputs,
   n: number,
-  target: { readonly value: number; readonly scale: string },
-  measure: (shrinkage: number) => { readonly achieved: number; readonly meets: boolean },
+  target: { readonly value: number; readonly scale: string; readonly raw: number },
+  achieved: (shrinkage: number) => number,
 ): PrecisionAtN {
   requireDevelopmentInputs(inputs);
   requireCount('n', n, 1);
@@ -46,5 +48,6 @@ export function precisionFromExpectedShrinkage(
   const s = closedFormShrinkageAtN(n, inputs.predictorParameters, inputs.coxSnellR2);
   if (s === null)
     return { ...base, achieved: null, meets: null, reason: 'the search for the expected shrinkage did not converge' };
-  return { ...base, ...measure(s) };
+  const required = closedFormSize(target.raw, lowestDevelopmentN(inputs)).n;
+  return { ...base, achieved: achieved(s), meets: required !== null && n >= required };
 }

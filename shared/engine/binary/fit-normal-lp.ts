@@ -44,8 +44,9 @@ const FIT_TOLERANCE = 1e-10;
  * Start: σ₀ = √2·Φ⁻¹(C) (for a rare outcome the event LPs are shifted by σ², so C ≈ Φ(σ/√2)) and
  * μ₀ = logit(phi) − σ₀²/2·(1 − phi); the start only affects speed, not the answer.
  * Domain: 0 < phi < 1 and 0.5 < C < 0.99; otherwise DomainError explaining why.
- * Accuracy: residual ≤ 1e−10; μ and σ agree with scipy's 6001-point version (METHODS 5.2) to
- * 1e−6, the difference being that version's −1.3e−7 bias in C.
+ * Accuracy: residual ≤ 1e−10; μ and σ agree to 1e−8 with a fit whose C is integrated by scipy
+ * adaptive quadrature, and to 1e−6 with the 6001-point version of METHODS 5.2 (whose C is biased by
+ * −1.3e−7).
  * Non-convergence is reported (converged = false and a reason), never returned as a fit.
  * Results are remembered per (phi, C) (a pure function of the two).
  * @example fitNormalLp(0.1, 0.8).lp // { mean: −2.776997, sd: 1.288256 }

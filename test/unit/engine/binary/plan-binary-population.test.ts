@@ -209,12 +209,16 @@ describe('binaryPrecisionAtN: what a fixed n delivers (check values computed wit
     expect(at.map((p) => p.meets)).toEqual([false, false, true, true, false]);
   });
 
-  it('at the required n each criterion just meets its target, and one participant fewer does not', () => {
-    const plan = planBinaryPopulation(methodsExample);
+  it('at the required n each criterion (development ones included) just meets its target, and one participant fewer does not', () => {
+    const options = { development: { predictorParameters: 24, coxSnellR2: 0.05 } };
+    const plan = planBinaryPopulation(methodsExample, options);
+    expect(plan.criteria).toHaveLength(8);
     for (const c of plan.criteria) {
       const n = c.n ?? 0;
-      expect(binaryPrecisionAtN(methodsExample, n).find((p) => p.id === c.id)?.meets, `${c.id} at ${n}`).toBe(true);
-      expect(binaryPrecisionAtN(methodsExample, n - 1).find((p) => p.id === c.id)?.meets, `${c.id} at ${n - 1}`).toBe(false);
+      expect(binaryPrecisionAtN(methodsExample, n, options).find((p) => p.id === c.id)?.meets, `${c.id} at ${n}`).toBe(true);
+      expect(binaryPrecisionAtN(methodsExample, n - 1, options).find((p) => p.id === c.id)?.meets, `${c.id} at ${n - 1}`).toBe(
+        false,
+      );
     }
   });
 

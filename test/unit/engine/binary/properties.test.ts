@@ -8,6 +8,7 @@ import { fitNormalLp } from '@shared/engine/binary/fit-normal-lp';
 import { lpCStatistic } from '@shared/engine/binary/lp-c-statistic';
 import { WELL_CALIBRATED } from '@shared/engine/binary/lp-distribution';
 import { lpOutcomeProportion } from '@shared/engine/binary/lp-outcome-proportion';
+import { netBenefitCriterion } from '@shared/engine/binary/net-benefit-criterion';
 import { netBenefitVariance } from '@shared/engine/binary/net-benefit-variance';
 import { newcombeSampleSize } from '@shared/engine/binary/newcombe-c-statistic';
 import { oeCriterion, oeSampleSize } from '@shared/engine/binary/oe-criterion';
@@ -76,6 +77,36 @@ describe('net benefit', () => {
           expect(v.standardisedVariance).toBeGreaterThan(0);
           expect(Number.isFinite(v.netBenefitVariance) && Number.isFinite(v.standardisedVariance)).toBe(true);
           expectClose(v.standardisedNetBenefit, v.netBenefit / phi, 1e-12 * Math.max(1, Math.abs(v.netBenefit / phi)), 'sNB');
+        },
+      ),
+    );
+  });
+
+  it('n grows as the target CI width narrows, for NB and for sNB', () => {
+    fc.assert(
+      fc.property(
+        proportion(0.05, 0.95),
+        proportion(0.05, 0.95),
+        proportion(0.01, 0.6),
+        proportion(0.01, 0.6),
+        fc.double({ min: 0.005, max: 0.5, noNaN: true }),
+        fc.double({ min: 0.005, max: 0.5, noNaN: true }),
+        fc.boolean(),
+        (sensitivity, specificity, phi, threshold, w1, w2, standardised) => {
+          const [narrow, wide] = w1 < w2 ? [w1, w2] : [w2, w1];
+          const n = (width: number) =>
+            netBenefitCriterion({
+              threshold,
+              sensitivity,
+              specificity,
+              lp: { kind: 'unavailable', reason: 'entered' },
+              calibration: WELL_CALIBRATED,
+              outcomeProportion: phi,
+              width,
+              standardised,
+              confidence: 0.95,
+            }).n ?? Number.POSITIVE_INFINITY;
+          expect(n(narrow)).toBeGreaterThanOrEqual(n(wide));
         },
       ),
     );
