@@ -22,7 +22,7 @@ function directives(policy: string): Map<string, string[]> {
 describe('Content-Security-Policy', () => {
   it("index.html's meta tag carries exactly the policy both hosts send", () => {
     const html = readFileSync(path.join(root, 'src-renderer', 'index.html'), 'utf8');
-    const meta = /http-equiv="Content-Security-Policy" content="([^"]+)"/.exec(html)?.[1];
+    const meta = /http-equiv="Content-Security-Policy"\s+content="([^"]+)"/.exec(html)?.[1];
     expect(meta).toBe(CONTENT_SECURITY_POLICY);
     expect(SECURITY_HEADERS['Content-Security-Policy']).toBe(CONTENT_SECURITY_POLICY);
   });
