@@ -1,14 +1,14 @@
 // Validation criterion 2: calibration-in-the-large estimated precisely [VAL-CONT].
 import { formatSignificant } from '../../format/numbers';
 import { DomainError } from '../errors';
-import { requirePositive } from '../helpers/domain-guards';
+import { requirePositiveOrInfinite } from '../helpers/domain-guards';
 import { criticalZ } from '../helpers/critical-z';
 import { seFromCiWidth } from '../helpers/se-from-ci-width';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import { citlResidualVariance } from './citl-residual-variance';
 import type { CriterionText } from './criterion-result';
 import { levelText, sizedCriterion } from './criterion-result';
-import { withinTarget } from './precision-tolerance';
+import { meetsRequirement } from './precision-tolerance';
 import type { SampleSize } from './sample-size';
 import { closedFormSize, NOT_REACHED } from './sample-size';
 
@@ -43,7 +43,7 @@ export function citlSampleSize(residualVariance: number, targetSe: number): Samp
   if (!(residualVariance >= 0) || !Number.isFinite(residualVariance)) {
     throw new DomainError('σ²_CITL', residualVariance, 'a finite number of at least 0 (0 only by underflow)');
   }
-  requirePositive('targetSe', targetSe);
+  requirePositiveOrInfinite('targetSe', targetSe);
   return closedFormSize(residualVariance / (targetSe * targetSe), CITL_LOWEST_N);
 }
 
@@ -112,5 +112,6 @@ export function citlPrecisionAtN(t: CitlTarget, n: number): PrecisionAtN {
   if (variance === null) return { ...base, se: null, achieved: null, meets: false, reason: 'var(Y − Ŷ) is too large to compute' };
   const se = Math.sqrt(variance / n);
   const achieved = 2 * criticalZ(t.confidence) * se;
-  return { ...base, se, achieved, meets: withinTarget(achieved, t.citlWidth) };
+  const targetSe = seFromCiWidth(t.citlWidth, t.confidence);
+  return { ...base, se, achieved, meets: meetsRequirement(n, variance / (targetSe * targetSe)) };
 }

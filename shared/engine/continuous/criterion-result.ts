@@ -43,7 +43,11 @@ export function sizedCriterion(
   note?: string,
 ): CriterionResult {
   const reason = size.status === 'not-converged' ? BEYOND_LIMIT_REASON : note;
-  return criterionResult(text, target, size.status, size.n, intermediates, reason);
+  // A quantity that overflowed a double (a target SE of +Infinity) is not shown as a number.
+  const shown = intermediates.every((i) => Number.isFinite(i.value))
+    ? intermediates
+    : intermediates.filter((i) => Number.isFinite(i.value));
+  return criterionResult(text, target, size.status, size.n, shown, reason);
 }
 
 /**

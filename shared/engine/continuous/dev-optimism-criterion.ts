@@ -6,7 +6,7 @@ import type { ContinuousDevelopmentInputs } from './continuous-inputs';
 import type { CriterionText } from './criterion-result';
 import { notAssessableCriterion, sizedCriterion } from './criterion-result';
 import { developmentCore } from './development-inputs-check';
-import { withinTarget } from './precision-tolerance';
+import { meetsRequirement } from './precision-tolerance';
 import type { SampleSize } from './sample-size';
 import { closedFormSize } from './sample-size';
 
@@ -29,7 +29,12 @@ export function optimismSampleSize(predictorParameters: number, adjustedRSquared
   requireCount('predictorParameters', predictorParameters, 1);
   requireOpenUnit('adjustedRSquared', adjustedRSquared);
   requireOpenUnit('optimismMargin', optimismMargin);
-  return closedFormSize(1 + (predictorParameters * (1 - adjustedRSquared)) / optimismMargin, predictorParameters + 2);
+  return closedFormSize(optimismRequirement(predictorParameters, adjustedRSquared, optimismMargin), predictorParameters + 2);
+}
+
+/** The unrounded n of criterion (ii), 1 + P(1 − R²_adj)/δ (inputs already checked). */
+function optimismRequirement(predictorParameters: number, adjustedRSquared: number, optimismMargin: number): number {
+  return 1 + (predictorParameters * (1 - adjustedRSquared)) / optimismMargin;
 }
 
 /** The size of criterion (ii) (the number only), or why it cannot be assessed. */
@@ -74,5 +79,5 @@ export function devOptimismPrecisionAtN(inputs: ContinuousDevelopmentInputs, n: 
   if (n < p + 2)
     return { ...base, achieved: null, meets: false, reason: `a model with P = ${p} needs at least P + 2 participants` };
   const achieved = (p * (1 - core.adjustedRSquared)) / (n - 1);
-  return { ...base, achieved, meets: withinTarget(achieved, inputs.optimismMargin) };
+  return { ...base, achieved, meets: meetsRequirement(n, optimismRequirement(p, core.adjustedRSquared, inputs.optimismMargin)) };
 }

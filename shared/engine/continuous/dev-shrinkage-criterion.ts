@@ -7,7 +7,6 @@ import type { CriterionText } from './criterion-result';
 import { notAssessableCriterion, sizedCriterion } from './criterion-result';
 import { developmentCore } from './development-inputs-check';
 import { expectedShrinkage } from './expected-shrinkage';
-import { atLeastTarget } from './precision-tolerance';
 import { adjustedR2LinkShrinkageSize, closedFormShrinkageSize, shrinkageBranchStart } from './shrinkage-sample-size';
 import type { SampleSize } from './sample-size';
 import { MAX_SAMPLE_SIZE } from './sample-size-limit';
@@ -113,7 +112,11 @@ export function devShrinkagePrecisionAtN(inputs: ContinuousDevelopmentInputs, n:
     const achieved = closedFormShrinkageAtN(n, p, r2);
     if (achieved === null)
       return { ...base, achieved: null, meets: null, reason: 'the closed-form shrinkage could not be solved at this n' };
-    return { ...base, achieved, meets: atLeastTarget(achieved, inputs.targetShrinkage) };
+    if (!(r2 < inputs.targetShrinkage)) return { ...base, achieved, meets: null, reason: CLOSED_FORM_DOMAIN };
+    // Met once n reaches the closed form's own (guarded) n: comparing the solved S with S* instead
+    // would amplify its last-digit error by dn/dS, which is ~1e8 for S* near 1 at large n.
+    const required = closedFormShrinkageSize(p, r2, inputs.targetShrinkage).n;
+    return { ...base, achieved, meets: required !== null && n >= required };
   }
   const achieved = expectedShrinkage(n, p, r2);
   if (p <= 2) return { ...base, achieved, meets: true };

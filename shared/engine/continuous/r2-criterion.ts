@@ -1,6 +1,6 @@
 // Validation criterion 1: R² estimated precisely [VAL-CONT].
 import { formatSignificant } from '../../format/numbers';
-import { requireOpenUnit, requirePositive } from '../helpers/domain-guards';
+import { requireOpenUnit, requirePositiveOrInfinite } from '../helpers/domain-guards';
 import { criticalZ } from '../helpers/critical-z';
 import { seFromCiWidth } from '../helpers/se-from-ci-width';
 import type { CriterionResult, PrecisionAtN } from '../types';
@@ -44,7 +44,7 @@ const TEXT: CriterionText = {
  */
 export function r2SampleSize(rSquared: number, targetSe: number): SampleSize {
   requireOpenUnit('rSquared', rSquared);
-  requirePositive('targetSe', targetSe);
+  requirePositiveOrInfinite('targetSe', targetSe);
   const meets = (n: number): boolean => r2StandardErrorKernel(rSquared, n) <= targetSe; // n ≥ 7 here
   if (meets(R2_SE_PEAK_N)) return { n: R2_LOWEST_N, status: 'always-met' };
   const oneMinus = 1 - rSquared;

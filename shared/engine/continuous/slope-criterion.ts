@@ -1,12 +1,12 @@
 // Validation criterion 3: the calibration slope estimated precisely [VAL-CONT].
 import { formatSignificant } from '../../format/numbers';
-import { requireCount, requireNonZero, requireOpenUnit, requirePositive } from '../helpers/domain-guards';
+import { requireCount, requireNonZero, requireOpenUnit, requirePositiveOrInfinite } from '../helpers/domain-guards';
 import { criticalZ } from '../helpers/critical-z';
 import { seFromCiWidth } from '../helpers/se-from-ci-width';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import type { CriterionText } from './criterion-result';
 import { levelText, sizedCriterion } from './criterion-result';
-import { withinTarget } from './precision-tolerance';
+import { meetsRequirement } from './precision-tolerance';
 import type { SampleSize } from './sample-size';
 import { closedFormSize } from './sample-size';
 
@@ -39,8 +39,13 @@ const TEXT: CriterionText = {
 export function slopeSampleSize(rSquaredSlope: number, slope: number, targetSe: number): SampleSize {
   requireOpenUnit('rSquaredSlope', rSquaredSlope);
   requireNonZero('slope', slope);
-  requirePositive('targetSe', targetSe);
-  return closedFormSize((slope * slope * (1 - rSquaredSlope)) / (targetSe * targetSe * rSquaredSlope) + 1, SLOPE_LOWEST_N);
+  requirePositiveOrInfinite('targetSe', targetSe);
+  return closedFormSize(slopeRequirement(rSquaredSlope, slope, targetSe), SLOPE_LOWEST_N);
+}
+
+/** The unrounded n of criterion 3, β²(1 − R²)/(SE*²·R²) + 1 (inputs already checked). */
+function slopeRequirement(rSquaredSlope: number, slope: number, targetSe: number): number {
+  return (slope * slope * (1 - rSquaredSlope)) / (targetSe * targetSe * rSquaredSlope) + 1;
 }
 
 /**
@@ -84,5 +89,6 @@ export function slopePrecisionAtN(t: SlopeTarget, n: number): PrecisionAtN {
   }
   const se = slopeStandardError(t.rSquaredSlope, t.slope, n);
   const achieved = 2 * criticalZ(t.confidence) * se;
-  return { ...base, se, achieved, meets: withinTarget(achieved, t.slopeWidth) };
+  const targetSe = seFromCiWidth(t.slopeWidth, t.confidence);
+  return { ...base, se, achieved, meets: meetsRequirement(n, slopeRequirement(t.rSquaredSlope, t.slope, targetSe)) };
 }

@@ -12,6 +12,14 @@ export function requirePositive(field: string, value: number): void {
   if (!(value > 0) || !Number.isFinite(value)) throw new DomainError(field, value, 'a finite number greater than 0');
 }
 
+/**
+ * Throws unless `value` is greater than 0, +Infinity included: a target SE that overflowed a double
+ * (a huge CI width at a tiny confidence level) demands no precision at all, which is meaningful.
+ */
+export function requirePositiveOrInfinite(field: string, value: number): void {
+  if (!(value > 0)) throw new DomainError(field, value, 'a number greater than 0 (Infinity allowed)');
+}
+
 /** Throws unless `value` lies strictly between 0 and 1 (R², shrinkage, confidence, proportions). */
 export function requireOpenUnit(field: string, value: number): void {
   if (!(value > 0 && value < 1)) throw new DomainError(field, value, 'a number strictly between 0 and 1');
