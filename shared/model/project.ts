@@ -1,6 +1,7 @@
 // The project document: the single truth for what a plan file holds. The command line, the
 // app, the reports and the JSON Schema published in schema/ are all derived from these schemas.
 import { z } from 'zod';
+import { simulationsSchema } from './simulation-record';
 
 export const FORMAT_TAG = 'plumbline-plan';
 export const SCHEMA_VERSION = 1;
@@ -172,6 +173,76 @@ export const studySchema = z.object({
     .optional(),
 });
 
+/** At least 0 (and at most `max` when given), finite: between-site SDs. */
+const atLeastZero = (what: string, max?: number) =>
+  finite(what).refine((v) => v >= 0 && (max === undefined || v <= max), {
+    error: max === undefined ? `${what} must be at least 0` : `${what} must be at least 0 and at most ${max}`,
+  });
+
+/** Greater than 0 (and at most `max` when given), finite: target widths. */
+const widthAtMost = (what: string, max?: number) =>
+  max === undefined
+    ? positive(what)
+    : positive(what).refine((v) => v <= max, { error: `${what} must be greater than 0 and at most ${max}` });
+
+/**
+ * One measure pooled across sites: the anticipated between-site SD τ of its true site values (with
+ * an optional low/high range) and the precision wanted for the random-effects summary. The measure
+ * is pooled once τ and the summary width are both given; everything is on the scale the per-site
+ * estimate is on.
+ */
+const pooledMeasureSchema = (measure: string, limits: { readonly tau?: number; readonly width?: number } = {}) => {
+  const tauWhat = `between-site SD τ of the ${measure}`;
+  return z
+    .object({
+      tau: atLeastZero(tauWhat, limits.tau).optional(),
+      tauRange: z
+        .object({
+          low: atLeastZero(`low end of the ${tauWhat}`, limits.tau),
+          high: atLeastZero(`high end of the ${tauWhat}`, limits.tau),
+        })
+        .refine((r) => r.low <= r.high, { error: 'low must not exceed high', path: ['high'] })
+        .optional(),
+      summaryCiWidth: widthAtMost(`target width of the summary CI for the ${measure}`, limits.width).optional(),
+      predictionIntervalWidth: widthAtMost(`target width of the prediction interval for the ${measure}`, limits.width).optional(),
+    })
+    .superRefine((m, ctx) => {
+      if (m.tau !== undefined && m.tauRange !== undefined && (m.tau < m.tauRange.low || m.tau > m.tauRange.high)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['tau'],
+          input: m.tau,
+          message: `${tauWhat} must lie within its low–high range`,
+        });
+      }
+    });
+};
+
+/** Planning across sites (a random-effects summary of the sites' estimates); off unless the aim says so. */
+export const pooledSchema = z.object({
+  /** site-specific: every site meets its own targets; pooled: the summary across sites does; both. */
+  aim: z
+    .enum(['site-specific', 'pooled', 'both'], { error: 'planning aim must be "site-specific", "pooled" or "both"' })
+    .default('site-specific'),
+  objective: z
+    .enum(['fewest-participants', 'shortest-recruitment'], {
+      error: 'pooled planning objective must be "fewest-participants" or "shortest-recruitment"',
+    })
+    .default('fewest-participants'),
+  confidence: openUnit('confidence level of the pooled intervals').default(0.95),
+  /** Keys as in each population's precision targets. */
+  measures: z
+    .object({
+      slope: pooledMeasureSchema('calibration slope').optional(),
+      citl: pooledMeasureSchema('CITL (outcome units)').optional(),
+      rSquared: pooledMeasureSchema('R²', { tau: 0.5, width: 1 }).optional(),
+    })
+    .prefault({}),
+});
+export type Pooled = z.infer<typeof pooledSchema>;
+export type PooledMeasureKey = keyof Pooled['measures'];
+export type PooledMeasureSettings = NonNullable<Pooled['measures'][PooledMeasureKey]>;
+
 export const projectSchema = z.object({
   format: z.literal(FORMAT_TAG, { error: `not a plan file (format tag must be "${FORMAT_TAG}")` }),
   schemaVersion: z.literal(SCHEMA_VERSION),
@@ -181,7 +252,11 @@ export const projectSchema = z.object({
   model: modelSchema.prefault({}),
   updating: updatingSchema.prefault({}),
   study: studySchema.prefault({}),
+  /** Absent in plans that never set it: read as the defaults of pooledSchema (site-specific aim). */
+  pooled: pooledSchema.optional(),
   populations: z.array(populationSchema).max(10_000),
+  /** The latest simulation check per population id (optional: plans without one stay valid). */
+  simulations: simulationsSchema.optional(),
 });
 export type Project = z.infer<typeof projectSchema>;
 export type ProjectInput = z.input<typeof projectSchema>;
