@@ -2,7 +2,9 @@
 // vite's programmatic build (SSR mode, target node20, '@shared' resolved, Node built-ins and
 // node_modules packages left as imports) into out/node/<name>.mjs and returns that path.
 // A build is skipped when the output is newer than every module it was built from (listed in a
-// manifest beside the output), than package.json and than this script. The bundle is written to a
+// manifest beside the output), than package.json and than this script: measured on the project's
+// 2-core machine, a build of the command line costs about 0.4 s in a new process (most of it
+// loading vite) and the freshness check about 1 ms. The bundle is written to a
 // private folder and renamed into place, so concurrent runs never see a half-written file.
 // Nothing is printed: the callers' stdout must carry only their own program's output.
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';

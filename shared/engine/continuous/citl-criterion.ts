@@ -89,6 +89,7 @@ export function citlCriterion(t: CitlTarget): CriterionResult {
   const intermediates = [
     { name: 'σ²_CITL = var(Y − Ŷ)', value: variance },
     { name: 'target SE(CITL)', value: targetSe },
+    { name: 'unrounded n', value: variance / (targetSe * targetSe) },
   ];
   return sizedCriterion(TEXT, targetText(t), size, intermediates);
 }

@@ -74,7 +74,10 @@ function targetText(t: SlopeTarget): string {
  */
 export function slopeCriterion(t: SlopeTarget): CriterionResult {
   const targetSe = seFromCiWidth(t.slopeWidth, t.confidence);
-  const intermediates = [{ name: 'target SE(slope)', value: targetSe }];
+  const intermediates = [
+    { name: 'target SE(slope)', value: targetSe },
+    { name: 'unrounded n', value: slopeRequirement(t.rSquaredSlope, t.slope, targetSe) },
+  ];
   return sizedCriterion(TEXT, targetText(t), slopeSize(t), intermediates);
 }
 

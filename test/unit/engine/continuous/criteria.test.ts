@@ -102,6 +102,18 @@ describe('validation criteria with the default targets (computed with scipy, MET
     ]);
   });
 
+  it('the slope criterion rounds 97.12 up to 98 at SE* 0.051 (R² 0.8; computed with scipy)', () => {
+    const width = 2 * 1.959963984540054 * 0.051; // the CI width whose target SE is 0.051
+    const slope = byId(evaluateContinuousValidation({ ...validation, slopeWidth: width }), 'slope');
+    expectClose(
+      slope.intermediates.find((x) => x.name === 'unrounded n')?.value ?? Number.NaN,
+      97.12,
+      0.005,
+      'raw n (printed to two decimals)',
+    );
+    expect(slope.n).toBe(98);
+  });
+
   it('R² 0.8 needs 190 for a CI width of 0.1 (computed with scipy)', () => {
     expect(byId(evaluateContinuousValidation({ ...validation, rSquared: 0.8 }), 'r2').n).toBe(190);
   });
