@@ -35,7 +35,7 @@ export default defineConfig({
     worker: { format: 'es' },
     build: {
       outDir: r('out/renderer'),
-      minify: process.env.PLUMBLINE_NO_MINIFY !== "1",
+      minify: process.env.PLUMBLINE_NO_MINIFY !== '1',
       rolldownOptions: { input: { index: r('src-renderer/index.html') } },
     },
   },

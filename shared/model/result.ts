@@ -7,5 +7,4 @@ export interface Failure<C extends string = string> {
 }
 
 export type Result<T, C extends string = string> =
-  | { readonly ok: true; readonly value: T }
-  | { readonly ok: false; readonly error: Failure<C> };
+  { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: Failure<C> };

@@ -83,11 +83,13 @@ export async function bench(): Promise<readonly string[]> {
       const input = document.querySelector<HTMLInputElement>('[data-testid="field-anticipated.rSquared"]');
       const main = document.querySelector('main');
       if (input === null || main === null) throw new Error('no R² field');
-      const setValue = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')?.set;
+      const setValue = (element: HTMLInputElement, value: string): void => {
+        Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')?.set?.call(element, value);
+      };
       const out: { table: number; all: number }[] = [];
       let previous = '';
       for (let i = 0; i < edits; i++) {
-        setValue?.call(input, i % 2 === 0 ? '0.41' : '0.43');
+        setValue(input, i % 2 === 0 ? '0.41' : '0.43');
         input.dispatchEvent(new Event('input', { bubbles: true }));
         await new Promise((r) => setTimeout(r, 50));
         let last = Number.NaN;

@@ -15,7 +15,8 @@ export const RecruitmentTimeline = memo(function RecruitmentTimeline({
   readonly windowMonths: number | undefined;
   readonly selectedId: string | null;
 }) {
-  const data = rows
+  const shown = chartRows(rows, selectedId);
+  const data = shown.rows
     .filter((row) => row.months !== null)
     .map((row) => ({ name: row.name, id: row.populationId, months: row.months, feasibility: row.feasibility }));
   if (data.length === 0) return <p className="muted">No site has an accrual rate yet, so there is no recruitment timeline.</p>;
@@ -23,6 +24,7 @@ export const RecruitmentTimeline = memo(function RecruitmentTimeline({
     <figure className="chart" aria-label="Recruitment time per site">
       <figcaption>
         Months to recruit per site{windowMonths === undefined ? '' : `; the line marks the ${windowMonths}-month window`}
+        {shown.hidden > 0 ? `; the first ${shown.rows.length} in the table's order` : ''}
       </figcaption>
       <ResponsiveContainer width="100%" height={Math.max(140, 36 * data.length + 50)}>
         <BarChart data={data} layout="vertical" margin={{ top: 8, right: 24, bottom: 8, left: 8 }}>
