@@ -11,7 +11,7 @@ import { formatJson } from './format-json';
 import { formatMarkdown } from './format-markdown';
 import { formatTable } from './format-table';
 import { parseArgs, USAGE } from './parse-args';
-import { continuousPlanner } from './planner';
+import { cliPlanner } from './planner';
 
 export const EXIT_OK = 0;
 export const EXIT_FAILURE = 1;
@@ -57,7 +57,7 @@ export async function runPlan(argv: readonly string[], io: PlanIo): Promise<numb
   if (typeof project === 'number') return project;
   try {
     const plan = planProject(project);
-    const rows = comparisonRows(project, continuousPlanner);
+    const rows = comparisonRows(project, cliPlanner);
     if (args.format === 'json') io.stdout(formatJson(plan, rows));
     else if (args.format === 'table') io.stdout(formatTable(project, plan, rows));
     else {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { r2SampleSize } from '@shared/engine/continuous/r2-criterion';
 import { seFromCiWidth } from '@shared/engine/helpers/se-from-ci-width';
+import { continuousPlanner } from '@shared/engine/plan/continuous-planner';
 import { planPopulation } from '@shared/engine/plan/plan-population';
 import { assumptionRanges } from '@shared/engine/ranges/assumption-ranges';
 import { sensitivityCurves } from '@shared/engine/ranges/sensitivity-curves';
@@ -154,9 +155,10 @@ describe('sensitivity curves', () => {
     expect(worstCase(population, project)?.key).toBe('outcomeMean');
   });
 
-  it('together with planPopulation they satisfy the planner the comparison table reads', () => {
-    const planner = { plan: planPopulation, worstCase, sensitivity: sensitivityCurves } satisfies Planner;
+  it('with planPopulation and worstCase they make the planner the comparison table reads', () => {
+    const planner: Planner = continuousPlanner satisfies Planner;
     const { project, population } = setUp({ ranges: { rSquared: { low: 0.4, high: 0.6 } } });
-    expect(planner.sensitivity(population, project)).toHaveLength(1);
+    expect(planner.sensitivity?.(population, project)).toHaveLength(1);
+    expect(planner.plan(population, project).requiredN).toBe(planPopulation(population, project).requiredN);
   });
 });
