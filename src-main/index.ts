@@ -5,7 +5,7 @@
 import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
-import { CHANNELS } from '@shared/model/channels';
+import { CHANNELS, MENU_EVENT } from '@shared/model/channels';
 import { APP_NAME, APP_VERSION } from './app-meta';
 import { dispatch } from './handlers/dispatch';
 import type { HandlerContext } from './handlers/context';
@@ -82,7 +82,7 @@ void app.whenReady().then(() => {
   Menu.setApplicationMenu(
     buildMenu(
       () => mainWindow,
-      (command) => mainWindow?.webContents.send('menu-command', command),
+      (command) => mainWindow?.webContents.send(MENU_EVENT, command),
     ),
   );
   mainWindow.on('closed', () => {

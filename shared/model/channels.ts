@@ -38,3 +38,19 @@ export function buildBridge(send: (channel: Channel, request: unknown) => Promis
   for (const channel of CHANNELS) bridge[channel] = (request: unknown) => send(channel, request);
   return Object.freeze(bridge) as RawBridge;
 }
+
+/** Commands the desktop menu sends to the page, which owns the document state. */
+export const MENU_COMMANDS = ['new', 'new-demo', 'open', 'save', 'save-as', 'revert', 'undo', 'redo', 'about'] as const;
+export type MenuCommand = (typeof MENU_COMMANDS)[number];
+
+/** The event channel the menu commands travel on (main → page only). */
+export const MENU_EVENT = 'menu-command';
+
+export function isMenuCommand(value: unknown): value is MenuCommand {
+  return typeof value === 'string' && (MENU_COMMANDS as readonly string[]).includes(value);
+}
+
+/** What the preload exposes besides the API: a subscription to menu commands (desktop only). */
+export interface MenuBridge {
+  readonly onCommand: (listener: (command: MenuCommand) => void) => () => void;
+}

@@ -1,9 +1,7 @@
 import { Menu, dialog, type BrowserWindow, type MenuItemConstructorOptions } from 'electron';
 import { CAUTIONS } from '@shared/text/cautions';
+import type { MenuCommand } from '@shared/model/channels';
 import { APP_NAME, APP_VERSION } from '../app-meta';
-
-/** Menu commands the renderer carries out (it owns the document state). */
-export type MenuCommand = 'new' | 'new-demo' | 'open' | 'save' | 'save-as' | 'revert' | 'undo' | 'redo';
 
 export function buildMenu(getWindow: () => BrowserWindow | null, send: (command: MenuCommand) => void): Menu {
   const item = (label: string, command: MenuCommand, accelerator?: string): MenuItemConstructorOptions => ({

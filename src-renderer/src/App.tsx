@@ -4,6 +4,7 @@ import type { Project } from '@shared/model/project';
 import { newEmptyProject } from '@shared/model/new-project';
 import { enginePlanner } from '@shared/summary/planner';
 import { call } from './api/client';
+import { AboutDialog } from './components/AboutDialog';
 import { Cautions } from './components/Cautions';
 import { FilePicker, type PickPurpose } from './components/FilePicker';
 import { RecoveryPrompt } from './components/RecoveryPrompt';
@@ -42,6 +43,7 @@ export function App() {
   const [recoverable, setRecoverable] = useState<readonly Recoverable[]>([]);
   const [picking, setPicking] = useState<Picking | null>(null);
   const [ready, setReady] = useState(false);
+  const [aboutOpen, setAboutOpen] = useState(false);
   const { state, dirty } = doc;
 
   const report = (text: string): void => setStatus(text);
@@ -168,6 +170,26 @@ export function App() {
     };
   }, []);
 
+  // Commands from the desktop menu (the browser host has the toolbar only).
+  useEffect(() => {
+    const menu = window.plumblineMenu;
+    if (menu === undefined) return;
+    return menu.onCommand((command) => {
+      const run = {
+        new: actions.newPlan,
+        'new-demo': actions.newFromDemo,
+        open: actions.open,
+        save: actions.save,
+        'save-as': actions.saveAs,
+        revert: actions.revert,
+        undo: doc.undo,
+        redo: doc.redo,
+        about: () => setAboutOpen(true),
+      }[command];
+      run();
+    });
+  });
+
   // Keyboard shortcuts outside text fields (inside them the field's own undo applies).
   useEffect(() => {
     const onKey = (event: KeyboardEvent): void => {
@@ -233,7 +255,9 @@ export function App() {
           undoLabel={state.lastLabel}
           redoLabel={state.future[0]?.label ?? null}
         />
-        {info ? <span className="muted small">v{info.version}</span> : null}
+        <button type="button" className="link" onClick={() => setAboutOpen(true)}>
+          About{info ? ` · v${info.version}` : ''}
+        </button>
       </header>
       <Cautions />
       {status ? (
@@ -281,6 +305,7 @@ export function App() {
           <p className="muted">Loading…</p>
         )}
       </main>
+      {aboutOpen ? <AboutDialog version={info?.version ?? null} onClose={() => setAboutOpen(false)} /> : null}
       {picking ? (
         <FilePicker
           purpose={picking.purpose}
