@@ -1,6 +1,6 @@
 import { developmentPrecisionAtN, validationPrecisionAtN } from '../continuous/evaluate-continuous';
 import type { CriterionResult, PrecisionAtN } from '../types';
-import type { Population, Project } from '../../model/project';
+import type { ContinuousPopulation, Project } from '../../model/project';
 import { populationCriteria } from './population-criteria';
 import { developmentInputsOf, validationInputsOf } from './population-inputs';
 import { requiredSize } from './required-size';
@@ -31,7 +31,7 @@ export interface PopulationPlan {
  * Pure: the same inputs always give the same plan.
  * @example planPopulation(population, project).requiredN // 762
  */
-export function planPopulation(population: Population, project: Pick<Project, 'updating'>): PopulationPlan {
+export function planPopulation(population: ContinuousPopulation, project: Pick<Project, 'updating'>): PopulationPlan {
   const criteria = populationCriteria(population, project);
   const overall = requiredSize(criteria);
   const validation = requiredSize(criteria.filter((c) => c.purpose === 'validation'));

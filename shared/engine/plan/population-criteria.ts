@@ -1,6 +1,6 @@
 import { evaluateContinuousDevelopment, evaluateContinuousValidation } from '../continuous/evaluate-continuous';
 import type { CriterionResult } from '../types';
-import type { Population, Project } from '../../model/project';
+import type { ContinuousPopulation, Project } from '../../model/project';
 import { developmentInputsOf, validationInputsOf } from './population-inputs';
 
 /**
@@ -8,7 +8,7 @@ import { developmentInputsOf, validationInputsOf } from './population-inputs';
  * criteria when the project's model-updating toggle is on.
  * @example populationCriteria(population, project).map((c) => c.id) // ['r2', 'citl', 'slope', 'residual-sd-citl', 'residual-sd-slope']
  */
-export function populationCriteria(population: Population, project: Pick<Project, 'updating'>): CriterionResult[] {
+export function populationCriteria(population: ContinuousPopulation, project: Pick<Project, 'updating'>): CriterionResult[] {
   const validation = evaluateContinuousValidation(validationInputsOf(population));
   if (!project.updating.enabled) return validation;
   return [...validation, ...evaluateContinuousDevelopment(developmentInputsOf(population, project.updating))];

@@ -3,10 +3,10 @@
 // calibration slope to 1; the development margin for the residual SD and the mean outcome is the
 // population's residual-SD margin factor.
 import type { ContinuousDevelopmentInputs, ContinuousValidationInputs } from '../continuous/continuous-inputs';
-import type { Population, Updating } from '../../model/project';
+import type { ContinuousPopulation, Updating } from '../../model/project';
 
 /** The validation inputs of one population. @example validationInputsOf(population).slope // 1 when not given */
-export function validationInputsOf(population: Population): ContinuousValidationInputs {
+export function validationInputsOf(population: ContinuousPopulation): ContinuousValidationInputs {
   const a = population.anticipated;
   const p = population.precision;
   return {
@@ -24,7 +24,7 @@ export function validationInputsOf(population: Population): ContinuousValidation
 }
 
 /** The development inputs of one population under the project's updating settings. */
-export function developmentInputsOf(population: Population, updating: Updating): ContinuousDevelopmentInputs {
+export function developmentInputsOf(population: ContinuousPopulation, updating: Updating): ContinuousDevelopmentInputs {
   return {
     predictorParameters: updating.predictorParameters,
     adjustedRSquared: updating.anticipatedAdjustedRSquared,

@@ -1,5 +1,5 @@
 import { CONTINUOUS_FIELDS } from '../../model/population-fields';
-import type { ContinuousAnticipatedKey, Population } from '../../model/project';
+import type { ContinuousAnticipatedKey, ContinuousPopulation } from '../../model/project';
 
 /** The field's label as the editor shows it, e.g. "Anticipated R²". */
 export function assumptionLabel(key: ContinuousAnticipatedKey): string {
@@ -11,7 +11,7 @@ export function assumptionLabel(key: ContinuousAnticipatedKey): string {
  * its documented default (R² for the CITL and slope models follow the anticipated R²; the slope is
  * 1). Undefined for the outcome mean and SD when they are not given.
  */
-export function effectiveBase(population: Population, key: ContinuousAnticipatedKey): number | undefined {
+export function effectiveBase(population: ContinuousPopulation, key: ContinuousAnticipatedKey): number | undefined {
   const a = population.anticipated;
   switch (key) {
     case 'rSquaredCitl':

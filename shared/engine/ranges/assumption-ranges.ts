@@ -1,4 +1,4 @@
-import type { ContinuousAnticipatedKey, Population, Project } from '../../model/project';
+import type { ContinuousAnticipatedKey, ContinuousPopulation, Project } from '../../model/project';
 import { assumptionLabel, effectiveBase } from './assumption-label';
 import type { SweepPoint } from './sweep';
 import { asksForMore, evaluateAt, rangedAssumptions, sweepValues } from './sweep';
@@ -41,7 +41,7 @@ function peakCandidates(key: ContinuousAnticipatedKey, low: number, high: number
  * @example assumptionRanges(population, project)[0].worst.requiredN // 801 when R² ranges over 0.25–0.45
  */
 export function assumptionRanges(
-  population: Population,
+  population: ContinuousPopulation,
   project: Pick<Project, 'updating'>,
   pointCount = DEFAULT_SWEEP_POINTS,
 ): AssumptionRange[] {

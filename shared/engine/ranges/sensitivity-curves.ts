@@ -1,4 +1,4 @@
-import type { ContinuousAnticipatedKey, Population, Project } from '../../model/project';
+import type { ContinuousAnticipatedKey, ContinuousPopulation, Project } from '../../model/project';
 import { assumptionLabel, effectiveBase } from './assumption-label';
 import { DEFAULT_SWEEP_POINTS } from './assumption-ranges';
 import { evaluateAt, rangedAssumptions, sweepValues } from './sweep';
@@ -21,7 +21,7 @@ export interface SensitivityCurve {
  * @example sensitivityCurves(population, project)[0].points.length // 25
  */
 export function sensitivityCurves(
-  population: Population,
+  population: ContinuousPopulation,
   project: Pick<Project, 'updating'>,
   pointCount = DEFAULT_SWEEP_POINTS,
 ): SensitivityCurve[] {

@@ -1,7 +1,7 @@
 import { populationSizes } from '../plan/population-sizes';
 import { requiredSize } from '../plan/required-size';
 import { continuousAnticipatedSchema } from '../../model/project';
-import type { ContinuousAnticipatedKey, Population, Project } from '../../model/project';
+import type { ContinuousAnticipatedKey, ContinuousPopulation, Project } from '../../model/project';
 
 /** The plan at one value of one assumption, the others at their base values. */
 export interface SweepPoint {
@@ -23,7 +23,7 @@ export interface RangedAssumption {
  * The assumptions of a population that have a low/high range, in the schema's field order. The
  * schema has already checked that every value in each range is admissible.
  */
-export function rangedAssumptions(population: Population): RangedAssumption[] {
+export function rangedAssumptions(population: ContinuousPopulation): RangedAssumption[] {
   const order = Object.keys(continuousAnticipatedSchema.shape);
   return (Object.entries(population.ranges) as [ContinuousAnticipatedKey, { low: number; high: number }][])
     .map(([key, r]) => ({ key, low: r.low, high: r.high }))
@@ -49,12 +49,12 @@ export function sweepValues(low: number, high: number, count: number): number[] 
  * CITL R² following the anticipated R², follow it here too).
  */
 export function evaluateAt(
-  population: Population,
+  population: ContinuousPopulation,
   project: Pick<Project, 'updating'>,
   key: ContinuousAnticipatedKey,
   value: number,
 ): SweepPoint {
-  const varied: Population = { ...population, anticipated: { ...population.anticipated, [key]: value } };
+  const varied: ContinuousPopulation = { ...population, anticipated: { ...population.anticipated, [key]: value } };
   const criteria = populationSizes(varied, project);
   const { requiredN, binding } = requiredSize(criteria);
   return { value, requiredN, binding, criteria: criteria.map((c) => ({ id: c.id, n: c.n })) };

@@ -1,5 +1,5 @@
 import { formatSignificant } from '../../format/numbers';
-import type { ContinuousAnticipatedKey, Population, Project } from '../../model/project';
+import type { ContinuousAnticipatedKey, ContinuousPopulation, Project } from '../../model/project';
 import type { AssumptionRange } from './assumption-ranges';
 import { assumptionRanges } from './assumption-ranges';
 import { asksForMore } from './sweep';
@@ -28,7 +28,7 @@ function describe(range: AssumptionRange): string {
  * the assumption that produced it named. Null when the population states no range.
  * @example worstCase(population, project)?.assumption // "Anticipated R² at 0.3333 within its range"
  */
-export function worstCase(population: Population, project: Pick<Project, 'updating'>): WorstCase | null {
+export function worstCase(population: ContinuousPopulation, project: Pick<Project, 'updating'>): WorstCase | null {
   let worst: AssumptionRange | null = null;
   for (const range of assumptionRanges(population, project))
     if (worst === null || asksForMore(range.worst, worst.worst)) worst = range;

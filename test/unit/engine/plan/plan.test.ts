@@ -3,20 +3,21 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { VALIDATION_CRITERION_IDS, DEVELOPMENT_CRITERION_IDS } from '@shared/engine/continuous/criterion-ids';
 import { planPopulation } from '@shared/engine/plan/plan-population';
-import { planProject } from '@shared/engine/plan/plan-project';
+import { isContinuousPopulation, planProject } from '@shared/engine/plan/plan-project';
 import { populationSizes } from '@shared/engine/plan/population-sizes';
 import { populationCriteria } from '@shared/engine/plan/population-criteria';
 import { requiredSize } from '@shared/engine/plan/required-size';
 import type { CriterionStatus } from '@shared/engine/types';
-import { projectSchema } from '@shared/model/project';
-import type { Project, ProjectInput } from '@shared/model/project';
+import { parsePlanText } from '@shared/model/plan-file';
+import { FORMAT_TAG, projectSchema, SCHEMA_VERSION } from '@shared/model/project';
+import type { ContinuousPopulation, Project, ProjectInput } from '@shared/model/project';
 
 const DEMO = new URL('../../../../demo/consortium-continuous.plumb', import.meta.url);
 
 function project(overrides: Partial<ProjectInput> = {}, population: Record<string, unknown> = {}): Project {
   return projectSchema.parse({
-    format: 'plumbline-plan',
-    schemaVersion: 1,
+    format: FORMAT_TAG,
+    schemaVersion: SCHEMA_VERSION,
     name: 'Test plan',
     outcome: 'continuous',
     populations: [
@@ -33,9 +34,9 @@ function project(overrides: Partial<ProjectInput> = {}, population: Record<strin
   });
 }
 
-const first = (p: Project) => {
+const first = (p: Project): ContinuousPopulation => {
   const population = p.populations[0];
-  if (population === undefined) throw new Error('no population');
+  if (population === undefined || !isContinuousPopulation(population)) throw new Error('no continuous population');
   return population;
 };
 
@@ -123,9 +124,13 @@ describe('the required n over a set of criteria', () => {
 });
 
 describe('the bundled demo plan', () => {
-  const demo = projectSchema.parse(JSON.parse(readFileSync(DEMO, 'utf8')));
+  // Read as the app and the command line read plan files (older schema versions are migrated).
+  const parsed = parsePlanText(readFileSync(DEMO, 'utf8'));
+  if (!parsed.ok) throw new Error(parsed.error.message);
+  const demo = parsed.project;
 
   it('parses with the project schema: five populations, model updating on', () => {
+    expect(projectSchema.safeParse(demo).success).toBe(true);
     expect(demo.populations).toHaveLength(5);
     expect(demo.updating.enabled).toBe(true);
   });
@@ -187,8 +192,8 @@ describe('planning never throws and never gives NaN for any plan the schema acce
     fc.assert(
       fc.property(population, updating, (pop, upd) => {
         const parsed = projectSchema.safeParse({
-          format: 'plumbline-plan',
-          schemaVersion: 1,
+          format: FORMAT_TAG,
+          schemaVersion: SCHEMA_VERSION,
           name: 'x',
           outcome: 'continuous',
           updating: upd,

@@ -3,21 +3,22 @@ import { r2SampleSize } from '@shared/engine/continuous/r2-criterion';
 import { seFromCiWidth } from '@shared/engine/helpers/se-from-ci-width';
 import { continuousPlanner } from '@shared/engine/plan/continuous-planner';
 import { planPopulation } from '@shared/engine/plan/plan-population';
+import { isContinuousPopulation } from '@shared/engine/plan/plan-project';
 import { assumptionRanges } from '@shared/engine/ranges/assumption-ranges';
 import { sensitivityCurves } from '@shared/engine/ranges/sensitivity-curves';
 import { evaluateAt, sweepValues } from '@shared/engine/ranges/sweep';
 import { worstCase } from '@shared/engine/ranges/worst-case';
 import type { Planner } from '@shared/summary/comparison';
-import { projectSchema } from '@shared/model/project';
-import type { Population, Project } from '@shared/model/project';
+import { FORMAT_TAG, projectSchema, SCHEMA_VERSION } from '@shared/model/project';
+import type { ContinuousPopulation, Project } from '@shared/model/project';
 
 function setUp(
   population: Record<string, unknown>,
   updating: Record<string, unknown> = {},
-): { project: Project; population: Population } {
+): { project: Project; population: ContinuousPopulation } {
   const project = projectSchema.parse({
-    format: 'plumbline-plan',
-    schemaVersion: 1,
+    format: FORMAT_TAG,
+    schemaVersion: SCHEMA_VERSION,
     name: 'Ranges',
     outcome: 'continuous',
     updating,
@@ -33,7 +34,7 @@ function setUp(
     ],
   });
   const first = project.populations[0];
-  if (first === undefined) throw new Error('no population');
+  if (first === undefined || !isContinuousPopulation(first)) throw new Error('no continuous population');
   return { project, population: first };
 }
 
