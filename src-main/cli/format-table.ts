@@ -66,6 +66,7 @@ export function formatTable(project: Project, plan: ProjectPlan, rows: readonly 
     lines.push(`${p.name} — required n ${required}${binding === undefined ? '' : ` (set by ${binding.label})`}`);
     lines.push(`  ${pad('', 2)}${pad('criterion', labelWidth)} ${pad('n', 9, true)}   target`);
     for (const c of p.criteria) lines.push(criterionLine(c, p.binding, labelWidth));
+    for (const problem of p.problems) lines.push(`  ! ${problem}`);
     if (p.worstCase !== null) {
       const worst = p.worstCase.requiredN === null ? 'out of reach' : formatCount(p.worstCase.requiredN);
       lines.push(`  Worst case across the ranges: ${worst} (${p.worstCase.assumption})`);
