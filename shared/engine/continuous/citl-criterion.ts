@@ -67,7 +67,10 @@ function citlVarianceOrOverflow(t: CitlTarget): number | null {
   }
 }
 
-/** The size of criterion 2 for a target (the number only; citlCriterion adds the words). */
+/**
+ * The size of criterion 2 for a target (the number only; citlCriterion adds the words).
+ * @example citlSize({ outcomeVariance: 100, rSquaredCitl: 0.8, slope: 1, citlWidth: 1, confidence: 0.95 }) // { n: 308, status: 'ok' }
+ */
 export function citlSize(t: CitlTarget): SampleSize {
   const variance = citlVarianceOrOverflow(t);
   return variance === null ? NOT_REACHED : citlSampleSize(variance, seFromCiWidth(t.citlWidth, t.confidence));

@@ -101,7 +101,10 @@ function interceptTarget(inputs: ContinuousDevelopmentInputs): InterceptTarget |
   return core as InterceptTarget; // the mean and SD were just checked
 }
 
-/** The size of criterion (iv) (the number only), or why it cannot be assessed. */
+/**
+ * The size of criterion (iv) (the number only), or why it cannot be assessed.
+ * @example devInterceptSize(lungExample) // { n: 38, status: 'ok' }
+ */
 export function devInterceptSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
   const t = interceptTarget(inputs);
   return typeof t === 'string' ? t : interceptSampleSize(t);

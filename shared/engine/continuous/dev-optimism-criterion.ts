@@ -37,7 +37,10 @@ function optimismRequirement(predictorParameters: number, adjustedRSquared: numb
   return 1 + (predictorParameters * (1 - adjustedRSquared)) / optimismMargin;
 }
 
-/** The size of criterion (ii) (the number only), or why it cannot be assessed. */
+/**
+ * The size of criterion (ii) (the number only), or why it cannot be assessed.
+ * @example devOptimismSize(lungExample) // { n: 401, status: 'ok' }
+ */
 export function devOptimismSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
   const core = developmentCore(inputs);
   if (typeof core === 'string') return core;

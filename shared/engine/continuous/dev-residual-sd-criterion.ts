@@ -16,7 +16,10 @@ const TEXT: CriterionText = {
   references: ['DEV-CONT'],
 };
 
-/** The size of criterion (iii) (the number only), or why it cannot be assessed. */
+/**
+ * The size of criterion (iii) (the number only), or why it cannot be assessed.
+ * @example devResidualSdSize(lungExample) // { n: 259, status: 'ok' }
+ */
 export function devResidualSdSize(inputs: ContinuousDevelopmentInputs): SampleSize | string {
   const core = developmentCore(inputs);
   if (typeof core === 'string') return core;

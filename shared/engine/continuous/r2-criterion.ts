@@ -58,7 +58,10 @@ export function r2SampleSize(rSquared: number, targetSe: number): SampleSize {
   return searchedSize(smallestFromEstimate(meets, root, R2_SE_PEAK_N + 1, MAX_SAMPLE_SIZE), R2_LOWEST_N);
 }
 
-/** The size of criterion 1 for a target (the number only; r2Criterion adds the words). */
+/**
+ * The size of criterion 1 for a target (the number only; r2Criterion adds the words).
+ * @example r2Size({ rSquared: 0.5, r2Width: 0.1, confidence: 0.95 }) // { n: 762, status: 'ok' }
+ */
 export function r2Size(t: R2Target): SampleSize {
   return r2SampleSize(t.rSquared, seFromCiWidth(t.r2Width, t.confidence));
 }

@@ -18,7 +18,10 @@ export function r2StandardError(rSquared: number, n: number): number {
   return r2StandardErrorKernel(rSquared, n);
 }
 
-/** The formula of r2StandardError without the domain checks, for searches that checked once. */
+/**
+ * The formula of r2StandardError without the domain checks, for searches that checked once.
+ * @example r2StandardErrorKernel(0.5, 200) // 0.049133…
+ */
 export function r2StandardErrorKernel(rSquared: number, n: number): number {
   const oneMinus = 1 - rSquared;
   return Math.sqrt((4 * rSquared * oneMinus * oneMinus * (n - 2) * (n - 2)) / ((n * n - 1) * (n + 3)));

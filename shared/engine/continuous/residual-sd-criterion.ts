@@ -50,7 +50,10 @@ export function residualSdIntermediates(n: number | null, coefficients: number, 
   ];
 }
 
-/** The size of criterion 4 for one calibration model (the number only). */
+/**
+ * The size of criterion 4 for one calibration model (the number only).
+ * @example residualSdSize('citl', { residualSdMargin: 1.1, confidence: 0.95 }) // { n: 234, status: 'ok' }
+ */
 export function residualSdSize(model: CalibrationModel, t: ResidualSdTarget): SampleSize {
   return residualSdSampleSize(t.residualSdMargin, t.confidence, COEFFICIENTS[model]);
 }

@@ -59,7 +59,10 @@ export function slopeStandardError(rSquaredSlope: number, slope: number, n: numb
   return Math.sqrt((slope * slope * (1 - rSquaredSlope)) / (rSquaredSlope * (n - 1)));
 }
 
-/** The size of criterion 3 for a target (the number only; slopeCriterion adds the words). */
+/**
+ * The size of criterion 3 for a target (the number only; slopeCriterion adds the words).
+ * @example slopeSize({ rSquaredSlope: 0.8, slope: 1, slopeWidth: 0.2, confidence: 0.95 }) // { n: 98, status: 'ok' }
+ */
 export function slopeSize(t: SlopeTarget): SampleSize {
   return slopeSampleSize(t.rSquaredSlope, t.slope, seFromCiWidth(t.slopeWidth, t.confidence));
 }

@@ -34,6 +34,7 @@ export function rangedAssumptions(population: ContinuousPopulation): RangedAssum
  * `count` evenly spaced values from low to high, both ends included (one value when low = high).
  * Interior values are rounded to 12 significant digits so that 0.3 + 0.03·i reads 0.33, not
  * 0.32999999999999996; the ends are exact.
+ * @example sweepValues(0.3, 0.48, 25)[4] // 0.33
  */
 export function sweepValues(low: number, high: number, count: number): number[] {
   if (!(count >= 2) || low === high) return [low];
