@@ -1,5 +1,6 @@
 // Validation criterion 4: the residual SDs of both calibration models estimated precisely [VAL-CONT].
 import { formatSignificant } from '../../format/numbers';
+import { NumberMemo } from '../helpers/number-memo';
 import { multiplicativeMarginOfError } from '../numerics/mmoe';
 import type { CriterionResult, Intermediate, PrecisionAtN } from '../types';
 import type { CriterionText } from './criterion-result';
@@ -40,13 +41,22 @@ export function residualSdTargetText(t: ResidualSdTarget): string {
   return `${levelText(t.confidence)} CI for the residual SD within ×/÷ ${formatSignificant(t.residualSdMargin)}`;
 }
 
+// MMOE at the df a criterion settles on: the same few (df, level) pairs recur in every plan, and
+// each costs two chi-square quantiles.
+const marginsShown = new NumberMemo<number>();
+
 /** MMOE at the chosen n, for the intermediates (the df that first meets the margin). */
 export function residualSdIntermediates(n: number | null, coefficients: number, confidence: number): Intermediate[] {
   if (n === null) return [];
   const df = n - coefficients;
+  let margin = marginsShown.get(df, confidence);
+  if (margin === undefined) {
+    margin = multiplicativeMarginOfError(df, confidence);
+    marginsShown.set(df, confidence, margin);
+  }
   return [
     { name: 'residual degrees of freedom', value: df },
-    { name: 'multiplicative margin of error at that df', value: multiplicativeMarginOfError(df, confidence) },
+    { name: 'multiplicative margin of error at that df', value: margin },
   ];
 }
 
