@@ -37,3 +37,14 @@ export function formatMonths(m: number | null | undefined): string {
   if (m === null || m === undefined || !Number.isFinite(m)) return '—';
   return `${m.toFixed(1)} months`;
 }
+
+/** A duration for people, from milliseconds: "under 1 s", "12 s", "3 min 20 s", "1 h 5 min". */
+export function formatDuration(ms: number | null | undefined): string {
+  if (ms === null || ms === undefined || !Number.isFinite(ms) || ms < 0) return '—';
+  const seconds = Math.round(ms / 1000);
+  if (seconds < 1) return 'under 1 s';
+  if (seconds < 60) return `${seconds} s`;
+  const minutes = Math.floor(seconds / 60);
+  if (minutes < 60) return `${minutes} min ${seconds % 60} s`;
+  return `${Math.floor(minutes / 60)} h ${minutes % 60} min`;
+}

@@ -12,6 +12,7 @@ import { ComparisonTable } from './ComparisonTable';
 import { PopulationEditor } from './PopulationEditor';
 import { PrecisionPanel } from './PrecisionPanel';
 import { ProjectSettings } from './ProjectSettings';
+import { SimulationPanel } from './SimulationPanel';
 import { newPopulation } from '../state/new-population';
 
 export interface WorkspaceProps {
@@ -167,6 +168,7 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
               }}
               {...(onExportPopulation ? { onExport: () => onExportPopulation(selected.id) } : {})}
             />
+            <SimulationPanel project={project} rows={rows} populationId={selected.id} onEdit={onEdit} />
           </div>
         ) : null}
       </div>
