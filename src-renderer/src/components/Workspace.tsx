@@ -12,6 +12,7 @@ import { ComparisonTable } from './ComparisonTable';
 import { PopulationEditor } from './PopulationEditor';
 import { PrecisionPanel } from './PrecisionPanel';
 import { ProjectSettings } from './ProjectSettings';
+import { PooledPanel } from './PooledPanel';
 import { SimulationPanel } from './SimulationPanel';
 import { newPopulation } from '../state/new-population';
 
@@ -117,6 +118,7 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
           />
         )}
       </section>
+      <PooledPanel project={project} rows={rows} onEdit={onEdit} />
       <div className="lower">
         <div className="charts">
           {chartOrder.length > 0 ? <CriterionBars rows={chartOrder} selectedId={chartSelected?.id ?? null} /> : null}
