@@ -1,14 +1,21 @@
 import type { ProjectPlan } from '@shared/engine/plan/plan-project';
 import type { ComparisonRow } from '@shared/summary/comparison';
 import { CAUTIONS } from '@shared/text/cautions';
+import { simulationJson } from './format-simulation';
+import type { PopulationSimulation } from './simulate-populations';
 
 /**
  * The --json output: `{ "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }`
  * with further fields in each object (status, label, target and reason per criterion; the
  * validation and development minimums, worst case, enrolment and precision at the available n per
- * population; the total and the cautions at the top).
+ * population; the total and the cautions at the top). With --simulate each population also has a
+ * `simulation` field (see simulationJson).
  */
-export function formatJson(plan: ProjectPlan, rows: readonly ComparisonRow[]): string {
+export function formatJson(
+  plan: ProjectPlan,
+  rows: readonly ComparisonRow[],
+  simulations?: readonly PopulationSimulation[],
+): string {
   const populations = plan.populations.map((p, i) => {
     const row = rows[i];
     return {
@@ -33,7 +40,13 @@ export function formatJson(plan: ProjectPlan, rows: readonly ComparisonRow[]): s
       availableN: p.availableN,
       precisionAtAvailableN: p.precisionAtAvailableN,
       problems: p.problems,
+      ...(simulations === undefined ? {} : simulationField(simulations, p.id)),
     };
   });
   return `${JSON.stringify({ populations, totalRequiredN: plan.totalRequiredN, cautions: CAUTIONS }, null, 2)}\n`;
+}
+
+function simulationField(simulations: readonly PopulationSimulation[], id: string): { simulation?: Record<string, unknown> } {
+  const s = simulations.find((x) => x.populationId === id);
+  return s === undefined ? {} : { simulation: simulationJson(s) };
 }

@@ -1,5 +1,7 @@
 // The command line's arguments: one plan file or --demo, and at most one output format.
 
+import { SIMULATE_USAGE } from './simulate-args';
+
 export type OutputFormat = 'table' | 'json' | 'csv' | 'markdown';
 
 export type PlanArgs =
@@ -21,6 +23,7 @@ criterion that sets it. Without a format option the output is a readable table.
   --json       machine-readable JSON: { "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }
   --csv        one row per population (RFC 4180)
   --markdown   tables in Markdown
+${SIMULATE_USAGE}
   --help       this text
 
 Exit status: 0 on success, 2 when the plan or the arguments are invalid (the problems are printed

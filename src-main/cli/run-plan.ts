@@ -11,6 +11,9 @@ import { formatJson } from './format-json';
 import { formatMarkdown } from './format-markdown';
 import { formatTable } from './format-table';
 import { parseArgs, USAGE } from './parse-args';
+import { formatSimulationMarkdown, formatSimulationTable } from './format-simulation';
+import { extractSimulateArgs } from './simulate-args';
+import { simulateAll } from './simulate-populations';
 import { cliPlanner } from './planner';
 
 export const EXIT_OK = 0;
@@ -43,7 +46,12 @@ async function loadProject(path: string, io: PlanIo): Promise<Project | number> 
 
 /** Runs the command with `argv` (arguments after the script name); resolves to the exit status. */
 export async function runPlan(argv: readonly string[], io: PlanIo): Promise<number> {
-  const args = parseArgs(argv);
+  const simulate = extractSimulateArgs(argv);
+  if (!simulate.ok) {
+    io.stderr(`plan: ${simulate.message}\n\n${USAGE}\n`);
+    return EXIT_INVALID;
+  }
+  const args = parseArgs(simulate.rest);
   if (args.kind === 'help') {
     io.stdout(`${USAGE}\n`);
     return EXIT_OK;
@@ -58,12 +66,22 @@ export async function runPlan(argv: readonly string[], io: PlanIo): Promise<numb
   try {
     const plan = planProject(project);
     const rows = comparisonRows(project, cliPlanner);
-    if (args.format === 'json') io.stdout(formatJson(plan, rows));
-    else if (args.format === 'table') io.stdout(formatTable(project, plan, rows));
+    const simulations = simulate.simulate === null ? null : simulateAll(project, rows, simulate.simulate, io.stderr);
+    if (simulations !== null && !Array.isArray(simulations)) {
+      io.stderr(`plan: ${simulations.message}\n`);
+      return EXIT_INVALID;
+    }
+    if (args.format === 'json') io.stdout(formatJson(plan, rows, simulations ?? undefined));
+    else if (args.format === 'table')
+      io.stdout(formatTable(project, plan, rows) + (simulations === null ? '' : formatSimulationTable(simulations)));
     else {
       const ranked = rankByRequiredN(rows);
       const cells = comparisonCells(ranked, comparisonTotals(ranked));
-      io.stdout(args.format === 'csv' ? toCsv(cells) : formatMarkdown(project, plan, cells));
+      io.stdout(
+        args.format === 'csv'
+          ? toCsv(cells)
+          : formatMarkdown(project, plan, cells) + (simulations === null ? '' : formatSimulationMarkdown(simulations)),
+      );
     }
     return EXIT_OK;
   } catch (error) {
