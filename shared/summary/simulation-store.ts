@@ -1,6 +1,6 @@
 // Between a simulation result and the record kept in the plan file, both ways, and the edit that
 // files a record under its population.
-import type { SimulationResult } from '../engine/simulation';
+import type { MeasureSummary, SimulationResult } from '../engine/simulation';
 import type { Project } from '../model/project';
 import type { SimulationBasis, SimulationRecord, StoredMeasure } from '../model/simulation-record';
 
@@ -11,13 +11,9 @@ export interface RunTiming {
   readonly elapsedMs: number;
 }
 
-/**
- * The record of a finished or cancelled run: the inputs as the engine simulated them (defaults
- * filled in), seed, counts, engine version and every measure's summary.
- * @example recordOf(result, 'required-n', { ranAt: '2026-03-02T10:15:00.000Z', elapsedMs: 120 }).replicatesDone // 2000
- */
-export function recordOf(result: SimulationResult, basis: SimulationBasis, timing: RunTiming): SimulationRecord {
-  const measures: StoredMeasure[] = result.measures.map((m) => ({
+/** A measure's summary as stored: the engine's fields, nothing else. */
+export function storedMeasureOf(m: MeasureSummary): StoredMeasure {
+  return {
     id: m.id,
     label: m.label,
     trueValue: m.trueValue,
@@ -31,7 +27,16 @@ export function recordOf(result: SimulationResult, basis: SimulationBasis, timin
     meanSize: m.meanSize,
     shareMeetingTarget: m.shareMeetingTarget,
     coverage: m.coverage,
-  }));
+  };
+}
+
+/**
+ * The record of a finished or cancelled run: the inputs as the engine simulated them (defaults
+ * filled in), seed, counts, engine version and every measure's summary.
+ * @example recordOf(result, 'required-n', { ranAt: '2026-03-02T10:15:00.000Z', elapsedMs: 120 }).replicatesDone // 2000
+ */
+export function recordOf(result: SimulationResult, basis: SimulationBasis, timing: RunTiming): SimulationRecord {
+  const measures = result.measures.map(storedMeasureOf);
   return {
     basis,
     n: result.n,

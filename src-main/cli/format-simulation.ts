@@ -2,6 +2,7 @@
 // section, and the `simulation` field of each population in --json. No timings here: with the
 // same seed the output is the same, run after run.
 import { SIMULATION_HEADER, simulationCells } from '@shared/summary/simulation-cells';
+import { storedMeasureOf } from '@shared/summary/simulation-store';
 import { CAUTIONS, CAUTIONS_ONE_LINE } from '@shared/text/cautions';
 import type { PopulationSimulation } from './simulate-populations';
 
@@ -90,19 +91,8 @@ export function simulationJson(s: PopulationSimulation): Record<string, unknown>
       const c = closed[m.id];
       const v = verdict.measures.find((x) => x.measureId === m.id);
       return {
-        id: m.id,
-        label: m.label,
-        scale: m.scale,
-        trueValue: m.trueValue,
-        targetValue: m.targetValue,
+        ...storedMeasureOf(m),
         closedForm: c === undefined ? null : { criterionId: c.criterionId, n: c.criterionN, se: c.se, size: c.achieved },
-        replicates: m.replicates,
-        replicatesNotEstimable: m.replicatesNotEstimable,
-        meanEstimate: m.meanEstimate,
-        empiricalSe: m.empiricalSe,
-        meanSize: m.meanSize,
-        shareMeetingTarget: m.shareMeetingTarget,
-        coverage: m.coverage,
         status: v?.status ?? null,
         verdict: v?.text ?? null,
       };

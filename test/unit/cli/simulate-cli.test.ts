@@ -1,32 +1,14 @@
 // `plan --simulate <replicates> --seed <s>`, run as users run it (node scripts/plan.mjs in a child
 // process), and its argument reader on its own.
-import { execFile } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { extractSimulateArgs } from '../../../src-main/cli/simulate-args';
+import { REPO_ROOT, runPlanCommand as plan } from './plan-command';
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
-const script = path.join(root, 'scripts', 'plan.mjs');
-const demoFile = path.join(root, 'demo', 'consortium-continuous.plumb');
+const demoFile = path.join(REPO_ROOT, 'demo', 'consortium-continuous.plumb');
 let work = '';
-
-interface Run {
-  readonly code: number;
-  readonly stdout: string;
-  readonly stderr: string;
-}
-
-function plan(...args: string[]): Promise<Run> {
-  return new Promise((resolve) => {
-    execFile(process.execPath, [script, ...args], { cwd: root, timeout: 120_000 }, (error, stdout, stderr) => {
-      const code = error === null ? 0 : typeof error.code === 'number' ? error.code : -1;
-      resolve({ code, stdout, stderr });
-    });
-  });
-}
 
 beforeAll(async () => {
   work = mkdtempSync(path.join(tmpdir(), 'plumbline-simulate-'));
