@@ -63,6 +63,11 @@ export function comparisonCells(rows: readonly ComparisonRow[], totals: Comparis
   return { header, body, footer };
 }
 
+/** Header, body and the footer when there is one (a table without totals has an empty footer). */
+function lines(table: CellTable): (readonly CellValue[])[] {
+  return table.footer.length === 0 ? [table.header, ...table.body] : [table.header, ...table.body, table.footer];
+}
+
 function tsvCell(value: CellValue): string {
   if (value === null) return '';
   return String(value).replace(/[\t\r\n]+/g, ' ');
@@ -70,7 +75,9 @@ function tsvCell(value: CellValue): string {
 
 /** Tab-separated text for pasting into a spreadsheet: header, rows, totals. */
 export function toTsv(table: CellTable): string {
-  return [table.header, ...table.body, table.footer].map((row) => row.map(tsvCell).join('\t')).join('\n') + '\n';
+  return `${lines(table)
+    .map((row) => row.map(tsvCell).join('\t'))
+    .join('\n')}\n`;
 }
 
 function csvCell(value: CellValue): string {
@@ -81,5 +88,7 @@ function csvCell(value: CellValue): string {
 
 /** RFC 4180 CSV: CRLF line ends, fields with commas, quotes or line breaks quoted, quotes doubled. */
 export function toCsv(table: CellTable): string {
-  return [table.header, ...table.body, table.footer].map((row) => row.map(csvCell).join(',')).join('\r\n') + '\r\n';
+  return `${lines(table)
+    .map((row) => row.map(csvCell).join(','))
+    .join('\r\n')}\r\n`;
 }
