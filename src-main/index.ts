@@ -2,7 +2,8 @@
 // handler per contract channel through dispatch(), serves the renderer from app://, and denies
 // everything a clinical machine would not want a desktop app to do (network, new windows,
 // navigation, permissions).
-import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
+import type { BrowserWindow } from 'electron';
+import { app, dialog, ipcMain, Menu, session } from 'electron';
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { CHANNELS, MENU_EVENT } from '@shared/model/channels';
@@ -10,6 +11,7 @@ import { APP_NAME, APP_VERSION } from './app-meta';
 import { dispatch } from './handlers/dispatch';
 import type { HandlerContext } from './handlers/context';
 import { buildMenu } from './electron/menu';
+import { printToPdf } from './electron/print-to-pdf';
 import { registerAppScheme, serveRenderer } from './electron/protocol';
 import { createMainWindow } from './electron/window';
 import { allowPermission, isAppUrl } from './security/navigation';
@@ -17,16 +19,6 @@ import { allowPermission, isAppUrl } from './security/navigation';
 registerAppScheme();
 
 let mainWindow: BrowserWindow | null = null;
-
-async function printToPdf(html: string): Promise<Uint8Array> {
-  const hidden = new BrowserWindow({ show: false, webPreferences: { sandbox: true, contextIsolation: true, javascript: false } });
-  try {
-    await hidden.loadURL(`data:text/html;charset=utf-8,${encodeURIComponent(html)}`);
-    return await hidden.webContents.printToPDF({ pageSize: 'A4', printBackground: true, displayHeaderFooter: false });
-  } finally {
-    hidden.destroy();
-  }
-}
 
 void app.whenReady().then(() => {
   const appRoot = app.getAppPath();
@@ -50,10 +42,12 @@ void app.whenReady().then(() => {
         const result = mainWindow ? await dialog.showOpenDialog(mainWindow, options) : await dialog.showOpenDialog(options);
         return result.canceled ? null : (result.filePaths[0] ?? null);
       },
-      async chooseSavePath({ title, defaultPath }) {
+      async chooseSavePath({ title, defaultPath, filters }) {
         const options = {
           title,
-          filters: [{ name: 'Plumbline plan', extensions: ['plumb'] }],
+          filters: filters?.map((f) => ({ name: f.name, extensions: [...f.extensions] })) ?? [
+            { name: 'Plumbline plan', extensions: ['plumb'] },
+          ],
           ...(defaultPath ? { defaultPath } : {}),
         };
         const result = mainWindow ? await dialog.showSaveDialog(mainWindow, options) : await dialog.showSaveDialog(options);

@@ -20,6 +20,8 @@ export const CHANNELS = [
   'exportPopulation',
   'chooseFile',
   'listFolder',
+  'exportReport',
+  'exportTable',
 ] as const;
 
 export type Channel = (typeof CHANNELS)[number];

@@ -68,7 +68,7 @@ export const contract = {
     }),
   },
   loadDemo: {
-    request: z.object({ which: z.enum(['continuous']).default('continuous') }).strict(),
+    request: z.object({ which: z.enum(['continuous', 'binary']).default('continuous') }).strict(),
     response: z.object({ path: z.string(), project: projectSchema }),
   },
   openPlan: {
@@ -169,7 +169,10 @@ export const contract = {
   },
   chooseFile: {
     request: z
-      .object({ purpose: z.enum(['open', 'save', 'import', 'export']), suggestedName: z.string().max(255).optional() })
+      .object({
+        purpose: z.enum(['open', 'save', 'import', 'export', 'report-pdf', 'report-md', 'table-csv', 'table-xlsx']),
+        suggestedName: z.string().max(255).optional(),
+      })
       .strict(),
     response: z.object({ native: z.boolean(), path: z.string().nullable() }),
   },
@@ -180,6 +183,27 @@ export const contract = {
       parent: z.string().nullable(),
       entries: z.array(z.object({ name: z.string(), path: z.string(), kind: z.enum(['folder', 'plan']) })),
     }),
+  },
+  exportReport: {
+    request: z
+      .object({ project: projectSchema, planPath: filePath.nullable(), format: z.enum(['pdf', 'md', 'txt']), path: filePath })
+      .strict(),
+    response: z.object({ path: z.string(), bytes: z.number() }),
+  },
+  exportTable: {
+    request: z.discriminatedUnion('format', [
+      z
+        .object({
+          project: projectSchema,
+          planPath: filePath.nullable(),
+          format: z.literal('csv'),
+          table: z.enum(['comparison', 'criteria']),
+          path: filePath,
+        })
+        .strict(),
+      z.object({ project: projectSchema, planPath: filePath.nullable(), format: z.literal('xlsx'), path: filePath }).strict(),
+    ]),
+    response: z.object({ path: z.string(), bytes: z.number() }),
   },
 } as const satisfies { readonly [C in Channel]: ChannelSpec };
 

@@ -2,10 +2,17 @@
 // build one; handlers never import 'electron' (under plain Node that import tries to download
 // the runtime and throws), so the same handlers run in both hosts and in unit tests.
 
+/** A file type a save dialog offers, e.g. { name: 'PDF document', extensions: ['pdf'] }. */
+export interface FileFilter {
+  readonly name: string;
+  readonly extensions: readonly string[];
+}
+
 /** Native dialogs exist only in the desktop host; the browser host lacks them. */
 export interface Dialogs {
   chooseOpenPath(options: { title: string; defaultPath?: string }): Promise<string | null>;
-  chooseSavePath(options: { title: string; defaultPath?: string }): Promise<string | null>;
+  /** `filters` narrows the dialog to a file type; plan files when omitted. */
+  chooseSavePath(options: { title: string; defaultPath?: string; filters?: readonly FileFilter[] }): Promise<string | null>;
 }
 
 export interface HandlerContext {

@@ -2,7 +2,7 @@ import { readdir } from 'node:fs/promises';
 import path from 'node:path';
 import { FILE_EXTENSION } from '@shared/model/project';
 import type { ParsedRequestOf, ResponseOf } from '@shared/model/contract';
-import type { HandlerContext } from './context';
+import type { FileFilter, HandlerContext } from './context';
 import { HandlerError } from './handler-error';
 
 const TITLES = {
@@ -10,17 +10,30 @@ const TITLES = {
   save: 'Save the plan',
   import: 'Import populations from a plan',
   export: 'Export the population as a plan',
+  'report-pdf': 'Save the report as PDF',
+  'report-md': 'Save the report as Markdown',
+  'table-csv': 'Export the table as CSV',
+  'table-xlsx': 'Export the tables as an Excel workbook',
 } as const;
+
+/** The file type of each save that is not a plan file. */
+const FILTERS: Readonly<Partial<Record<keyof typeof TITLES, FileFilter>>> = {
+  'report-pdf': { name: 'PDF document', extensions: ['pdf'] },
+  'report-md': { name: 'Markdown text', extensions: ['md'] },
+  'table-csv': { name: 'CSV table', extensions: ['csv'] },
+  'table-xlsx': { name: 'Excel workbook', extensions: ['xlsx'] },
+};
 
 /** A native file dialog where the host has one (desktop); the browser host answers native: false and the page shows its own picker. */
 export async function chooseFile(request: ParsedRequestOf<'chooseFile'>, ctx: HandlerContext): Promise<ResponseOf<'chooseFile'>> {
   if (ctx.dialogs === undefined) return { native: false, path: null };
   const title = TITLES[request.purpose];
   const defaultPath = request.suggestedName === undefined ? ctx.documentsDir : path.join(ctx.documentsDir, request.suggestedName);
+  const filter = FILTERS[request.purpose];
   const chosen =
-    request.purpose === 'save' || request.purpose === 'export'
-      ? await ctx.dialogs.chooseSavePath({ title, defaultPath })
-      : await ctx.dialogs.chooseOpenPath({ title, defaultPath: ctx.documentsDir });
+    request.purpose === 'open' || request.purpose === 'import'
+      ? await ctx.dialogs.chooseOpenPath({ title, defaultPath: ctx.documentsDir })
+      : await ctx.dialogs.chooseSavePath({ title, defaultPath, ...(filter === undefined ? {} : { filters: [filter] }) });
   return { native: true, path: chosen };
 }
 

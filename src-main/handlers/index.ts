@@ -6,6 +6,7 @@ import { appInfo } from './app-info';
 import { loadDemo } from './load-demo';
 import { chooseFile, listFolder } from './file-choice';
 import * as planFiles from './plan-files';
+import { exportReport, exportTable } from './report-exports';
 
 export type Handlers = {
   readonly [C in Channel]: (request: ParsedRequestOf<C>, ctx: HandlerContext) => Promise<ResponseOf<C>>;
@@ -17,4 +18,6 @@ export const handlers: Handlers = {
   ...planFiles,
   chooseFile,
   listFolder,
+  exportReport,
+  exportTable,
 };

@@ -4,6 +4,7 @@ import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { APP_NAME, APP_VERSION } from '../app-meta';
 import { browserHostFolders } from '../host-paths';
+import { chromiumPrinter } from '../report/chromium-pdf';
 import { startLoopbackHost } from './server';
 
 const here = import.meta.dirname;
@@ -20,6 +21,7 @@ const host = await startLoopbackHost({
     runtime: 'browser',
     demoDir: path.join(appRoot, 'demo'),
     instanceId: randomUUID(),
+    printToPdf: chromiumPrinter(),
     ...browserHostFolders(),
   },
 });

@@ -4,6 +4,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { test as base, expect, type Page } from '@playwright/test';
 import { startLoopbackHost, type LoopbackHost } from '../../../src-main/loopback/server';
+import { chromiumPrinter } from '../../../src-main/report/chromium-pdf';
 
 export interface Folders {
   readonly userDataDir: string;
@@ -37,6 +38,7 @@ export const test = base.extend<Fixtures>({
         runtime: 'browser',
         demoDir: path.join(REPO_ROOT, 'demo'),
         instanceId: 'e2e-instance',
+        printToPdf: chromiumPrinter(),
         ...folders,
       },
     });
