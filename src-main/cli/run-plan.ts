@@ -1,5 +1,5 @@
 // The `plan` command: reads a plan file (or the bundled demo), validates it field by field and
-// prints every population's plan as a table, JSON, CSV or Markdown.
+// prints every population's plan as a table, JSON, CSV or Markdown, or writes its report.
 import { readFile } from 'node:fs/promises';
 import { planProject } from '@shared/engine/plan/plan-project';
 import { parsePlanText } from '@shared/model/plan-file';
@@ -10,12 +10,12 @@ import { toCsv } from '@shared/summary/table-cells';
 import { formatJson } from './format-json';
 import { formatMarkdown } from './format-markdown';
 import { formatTable } from './format-table';
-import { cliPooledSummary, pooledMarkdownText, pooledTableText, withPooledJson } from './format-pooled';
 import { parseArgs, USAGE } from './parse-args';
 import { formatSimulationMarkdown, formatSimulationTable } from './format-simulation';
 import { extractSimulateArgs } from './simulate-args';
 import { simulateAll } from './simulate-populations';
 import { cliPlanner } from './planner';
+import { writeReportFile } from './write-report';
 
 export const EXIT_OK = 0;
 export const EXIT_FAILURE = 1;
@@ -64,31 +64,25 @@ export async function runPlan(argv: readonly string[], io: PlanIo): Promise<numb
   const path = args.source.demo ? io.demoPath : args.source.file;
   const project = await loadProject(path, io);
   if (typeof project === 'number') return project;
+  if (args.report !== undefined) return (await writeReportFile(project, path, args.report, io)) ? EXIT_OK : EXIT_FAILURE;
   try {
     const plan = planProject(project);
     const rows = comparisonRows(project, cliPlanner);
-    const pooled = cliPooledSummary(project, plan);
     const simulations = simulate.simulate === null ? null : simulateAll(project, rows, simulate.simulate, io.stderr);
     if (simulations !== null && !Array.isArray(simulations)) {
       io.stderr(`plan: ${simulations.message}\n`);
       return EXIT_INVALID;
     }
-    if (args.format === 'json') io.stdout(withPooledJson(formatJson(plan, rows, simulations ?? undefined), pooled));
+    if (args.format === 'json') io.stdout(formatJson(plan, rows, simulations ?? undefined));
     else if (args.format === 'table')
-      io.stdout(
-        formatTable(project, plan, rows) +
-          pooledTableText(pooled) +
-          (simulations === null ? '' : formatSimulationTable(simulations)),
-      );
+      io.stdout(formatTable(project, plan, rows) + (simulations === null ? '' : formatSimulationTable(simulations)));
     else {
       const ranked = rankByRequiredN(rows);
       const cells = comparisonCells(ranked, comparisonTotals(ranked));
       io.stdout(
         args.format === 'csv'
           ? toCsv(cells)
-          : formatMarkdown(project, plan, cells) +
-              pooledMarkdownText(pooled) +
-              (simulations === null ? '' : formatSimulationMarkdown(simulations)),
+          : formatMarkdown(project, plan, cells) + (simulations === null ? '' : formatSimulationMarkdown(simulations)),
       );
     }
     return EXIT_OK;
