@@ -10,6 +10,7 @@ import { toCsv } from '@shared/summary/table-cells';
 import { formatJson } from './format-json';
 import { formatMarkdown } from './format-markdown';
 import { formatTable } from './format-table';
+import { cliPooledSummary, pooledMarkdownText, pooledTableText, withPooledJson } from './format-pooled';
 import { parseArgs, USAGE } from './parse-args';
 import { formatSimulationMarkdown, formatSimulationTable } from './format-simulation';
 import { extractSimulateArgs } from './simulate-args';
@@ -68,21 +69,28 @@ export async function runPlan(argv: readonly string[], io: PlanIo): Promise<numb
   try {
     const plan = planProject(project);
     const rows = comparisonRows(project, cliPlanner);
+    const pooled = cliPooledSummary(project, plan);
     const simulations = simulate.simulate === null ? null : simulateAll(project, rows, simulate.simulate, io.stderr);
     if (simulations !== null && !Array.isArray(simulations)) {
       io.stderr(`plan: ${simulations.message}\n`);
       return EXIT_INVALID;
     }
-    if (args.format === 'json') io.stdout(formatJson(plan, rows, simulations ?? undefined));
+    if (args.format === 'json') io.stdout(withPooledJson(formatJson(plan, rows, simulations ?? undefined), pooled));
     else if (args.format === 'table')
-      io.stdout(formatTable(project, plan, rows) + (simulations === null ? '' : formatSimulationTable(simulations)));
+      io.stdout(
+        formatTable(project, plan, rows) +
+          pooledTableText(pooled) +
+          (simulations === null ? '' : formatSimulationTable(simulations)),
+      );
     else {
       const ranked = rankByRequiredN(rows);
       const cells = comparisonCells(ranked, comparisonTotals(ranked));
       io.stdout(
         args.format === 'csv'
           ? toCsv(cells)
-          : formatMarkdown(project, plan, cells) + (simulations === null ? '' : formatSimulationMarkdown(simulations)),
+          : formatMarkdown(project, plan, cells) +
+              pooledMarkdownText(pooled) +
+              (simulations === null ? '' : formatSimulationMarkdown(simulations)),
       );
     }
     return EXIT_OK;
