@@ -8,6 +8,7 @@ import { AboutDialog } from './components/AboutDialog';
 import { Cautions } from './components/Cautions';
 import { FilePicker, type PickPurpose } from './components/FilePicker';
 import { RecoveryPrompt } from './components/RecoveryPrompt';
+import { ReportDialog } from './components/ReportDialog';
 import { Toolbar } from './components/Toolbar';
 import { Workspace } from './components/Workspace';
 import { usePlanDocument } from './state/usePlanDocument';
@@ -44,6 +45,7 @@ export function App() {
   const [picking, setPicking] = useState<Picking | null>(null);
   const [ready, setReady] = useState(false);
   const [aboutOpen, setAboutOpen] = useState(false);
+  const [reportOpen, setReportOpen] = useState(false);
   const { state, dirty } = doc;
 
   const report = (text: string): void => setStatus(text);
@@ -127,6 +129,7 @@ export function App() {
           report(`Imported ${result.imported.length} populations: ${result.imported.map((p) => p.name).join(', ')}.`);
         }, fail('Nothing was imported'));
       }),
+    report: () => setReportOpen(true),
     undo: doc.undo,
     redo: doc.redo,
   };
@@ -305,6 +308,16 @@ export function App() {
           <p className="muted">Loading…</p>
         )}
       </main>
+      {reportOpen ? (
+        <ReportDialog
+          project={state.project}
+          planPath={state.path}
+          planner={enginePlanner}
+          baseName={fileNameFor(state.project).replace(/\.plumb$/, '')}
+          pick={pick}
+          onClose={() => setReportOpen(false)}
+        />
+      ) : null}
       {aboutOpen ? <AboutDialog version={info?.version ?? null} onClose={() => setAboutOpen(false)} /> : null}
       {picking ? (
         <FilePicker

@@ -3,13 +3,29 @@ import type { ResponseOf } from '@shared/model/contract';
 import { FILE_EXTENSION } from '@shared/model/project';
 import { call } from '../api/client';
 
-export type PickPurpose = 'open' | 'save' | 'import' | 'export';
+export type PickPurpose = 'open' | 'save' | 'import' | 'export' | 'report-pdf' | 'report-md' | 'table-csv' | 'table-xlsx';
 
 const TITLES: Readonly<Record<PickPurpose, string>> = {
   open: 'Open a plan',
   save: 'Save the plan as',
   import: 'Import populations from a plan',
   export: 'Export the population as a plan',
+  'report-pdf': 'Save the report as PDF',
+  'report-md': 'Save the report as Markdown',
+  'table-csv': 'Export the table as CSV',
+  'table-xlsx': 'Export the tables as an Excel workbook',
+};
+
+/** The extension a saved file gets. */
+const EXTENSIONS: Readonly<Record<PickPurpose, string>> = {
+  open: FILE_EXTENSION,
+  save: FILE_EXTENSION,
+  import: FILE_EXTENSION,
+  export: FILE_EXTENSION,
+  'report-pdf': '.pdf',
+  'report-md': '.md',
+  'table-csv': '.csv',
+  'table-xlsx': '.xlsx',
 };
 
 export interface FilePickerProps {
@@ -26,7 +42,8 @@ export function FilePicker({ purpose, suggestedName, startFolder, onChoose, onCa
   const [folder, setFolder] = useState<ResponseOf<'listFolder'> | null>(null);
   const [name, setName] = useState(suggestedName ?? '');
   const [error, setError] = useState<string | null>(null);
-  const saving = purpose === 'save' || purpose === 'export';
+  const saving = purpose !== 'open' && purpose !== 'import';
+  const extension = EXTENSIONS[purpose];
 
   const list = (path?: string): void => {
     call('listFolder', path === undefined ? {} : { path }).then(
@@ -51,7 +68,7 @@ export function FilePicker({ purpose, suggestedName, startFolder, onChoose, onCa
     }
     const isAbsolute = typed.startsWith('/') || /^[A-Za-z]:[\\/]/.test(typed);
     const base = isAbsolute || folder === null ? typed : `${folder.path}${folder.path.endsWith('/') ? '' : '/'}${typed}`;
-    onChoose(saving && !base.endsWith(FILE_EXTENSION) ? `${base}${FILE_EXTENSION}` : base);
+    onChoose(saving && !base.toLowerCase().endsWith(extension) ? `${base}${extension}` : base);
   };
 
   return (
@@ -84,7 +101,7 @@ export function FilePicker({ purpose, suggestedName, startFolder, onChoose, onCa
       </ul>
       <div className="field">
         <label htmlFor="picker-name">
-          {saving ? `File name (${FILE_EXTENSION} is added)` : 'Plan file (name in this folder, or a full path)'}
+          {saving ? `File name (${extension} is added)` : 'Plan file (name in this folder, or a full path)'}
         </label>
         <input
           id="picker-name"

@@ -6,6 +6,7 @@ export interface ToolbarActions {
   readonly saveAs: () => void;
   readonly revert: () => void;
   readonly importPopulations: () => void;
+  readonly report: () => void;
   readonly undo: () => void;
   readonly redo: () => void;
 }
@@ -48,6 +49,13 @@ export function Toolbar({
       </button>
       <button type="button" onClick={actions.importPopulations}>
         Import populations…
+      </button>
+      <button
+        type="button"
+        onClick={actions.report}
+        title="Copy the justification text, save the report as PDF or Markdown, export the tables"
+      >
+        Report…
       </button>
       <button
         type="button"
