@@ -11,9 +11,17 @@ export const formatPooledWidth = (x: number | null): string => formatSignificant
 /** τ and targets as the planner typed them (up to six significant digits). */
 export const formatPooledInput = (x: number | null): string => formatSignificant(x, 6);
 
-function doi(key: ReferenceKey): string {
-  return /doi:\S+/.exec(REFERENCES[key].citation)?.[0] ?? '';
+/** A short pointer to a source: its DOI, or else its journal, year and pages (the citation's last part). */
+export function referenceSource(key: ReferenceKey): string {
+  const citation = REFERENCES[key].citation;
+  return /doi:\S+/.exec(citation)?.[0] ?? citation.split('. ').at(-1) ?? citation;
 }
+
+/** Gives the citation mark for some references (a report's numbered register, e.g. "[1, 3]"). */
+export type CiteReferences = (keys: readonly ReferenceKey[]) => string;
+
+/** Without a register: the DOIs (or journal and year) in parentheses. */
+const citeBySource: CiteReferences = (keys) => `(${keys.map(referenceSource).join('; ')})`;
 
 function list(items: readonly string[]): string {
   if (items.length <= 1) return items.join('');
@@ -136,10 +144,10 @@ function proposalParagraph(proposal: PooledProposal): string {
  * weights, the Higgins–Thompson–Spiegelhalter prediction interval with t on K − 2), each pooled
  * measure's anticipated τ, targets and figures, the proposal (pooled and both aims), what keeps
  * figures from being shown, and the approximations (POOLED_CAUTIONS). Plain text, paragraphs
- * separated by blank lines.
+ * separated by blank lines; sources are cited with `cite` (a report's numbered register), or by DOI.
  * @example pooledParagraph(pooledSummary(project)).startsWith('Precision across sites.') // true
  */
-export function pooledParagraph(summary: PooledSummary): string {
+export function pooledParagraph(summary: PooledSummary, cite: CiteReferences = citeBySource): string {
   const level = formatPercent(summary.confidence, 1);
   const aimText =
     summary.aim === 'pooled'
@@ -148,12 +156,14 @@ export function pooledParagraph(summary: PooledSummary): string {
         ? 'The aim is both: every site meets its own precision targets, and the summary across sites meets the pooled targets.'
         : 'The aim is site-specific precision; the pooled figures below are for information.';
   const paragraphs: string[] = [];
+  const used = [...new Set(summary.measures.flatMap((m) => m.references))];
+  const seSources: readonly ReferenceKey[] = used.length > 0 ? used : ['VAL-CONT'];
   const df = summary.k >= 3 ? ` = ${formatCount(summary.k - 2)}` : '';
   paragraphs.push(
     `Precision across sites. ${aimText} The model's performance in the ${formatCount(summary.k)} sites will be summarised by a random-effects meta-analysis of the site estimates, ` +
-      `with inverse-variance weights 1/(SE² + τ²) (${doi('DERSIMONIAN-LAIRD-1986')}), and its spread by the Higgins–Thompson–Spiegelhalter ${level} prediction interval for the performance in a new site, ` +
-      `summary ± t·√(τ² + SE²) with t on K − 2${df} degrees of freedom (${doi('HIGGINS-THOMPSON-SPIEGELHALTER-2009')}). ` +
-      `Each site's SE is that of its site-specific criterion at its n (${doi('VAL-CONT')}); the planned n of a site is its fixed available n, or else the n its own targets require.`,
+      `with inverse-variance weights 1/(SE² + τ²) ${cite(['DERSIMONIAN-LAIRD-1986'])}, and its spread by the Higgins–Thompson–Spiegelhalter ${level} prediction interval for the performance in a new site, ` +
+      `summary ± t·√(τ² + SE²) with t on K − 2${df} degrees of freedom ${cite(['HIGGINS-THOMPSON-SPIEGELHALTER-2009'])}. ` +
+      `Each site's SE is that of its site-specific criterion at its n ${cite(seSources)}; the planned n of a site is its fixed available n, or else the n its own targets require.`,
   );
   for (const m of summary.measures) paragraphs.push(measureParagraph(m, summary, level));
   if (summary.proposal !== null) paragraphs.push(proposalParagraph(summary.proposal));

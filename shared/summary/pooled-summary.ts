@@ -29,6 +29,7 @@ import {
 import { planPopulation } from '../engine/plan/plan-population';
 import { isContinuousPopulation } from '../engine/plan/plan-project';
 import { DomainError } from '../engine/errors';
+import type { ReferenceKey } from '../engine/types';
 import { ceilGuarded } from '../engine/numerics/rounding';
 import {
   enrolmentTarget,
@@ -93,6 +94,8 @@ export interface PooledMeasureFigures {
   readonly criterionId: string;
   readonly name: string;
   readonly scale: string;
+  /** Sources of the per-site SE formula. */
+  readonly references: readonly ReferenceKey[];
   readonly tau: number;
   readonly tauRange: Range | null;
   readonly target: PooledTarget;
@@ -562,6 +565,7 @@ export function pooledSummary(project: Project, options: PooledSummaryOptions = 
       criterionId: m.spec.criterionId,
       name: m.spec.name,
       scale: m.spec.scale,
+      references: m.spec.references,
       tau: m.tau,
       tauRange: m.tauRange,
       target: m.target,

@@ -10,7 +10,10 @@ import { slopePrecisionAtN } from '@shared/engine/continuous/slope-criterion';
 import { fixedEffectSummary, pooledPrecision } from '@shared/engine/pooled';
 import { validationInputsOf } from '@shared/engine/plan/population-inputs';
 import type { ContinuousPopulation } from '@shared/model/project';
+import { referenceSource } from '@shared/summary/pooled-paragraph';
 import { baseCase, pooledParagraph, pooledSummary, type PooledSummary } from '@shared/summary/pooled-summary';
+import { REFERENCES } from '@shared/engine/references';
+import type { ReferenceKey } from '@shared/engine/types';
 import { formatCount, formatMonths, formatPercent, formatSignificant } from '@shared/format/numbers';
 import { expectClose } from '../helpers/expect-close';
 import { plan } from './pooled-test-plans';
@@ -300,7 +303,10 @@ describe('pooledParagraph', () => {
 
   it('holds no number that is not in the summary (every number it gives comes from the figures or their words)', () => {
     const known = new Set<string>(['1', '2']); // the digits of the formulas 1/(SE² + τ²), 2·t·τ and K − 2
-    const tokens = (s: string): string[] => s.replace(/doi:\S+/g, '').match(/\d+(?:,\d{3})*(?:\.\d+)?%?/g) ?? [];
+    // The sources cited (DOIs, journal and year) are not figures.
+    const sources = Object.keys(REFERENCES).map((key) => referenceSource(key as ReferenceKey));
+    const tokens = (s: string): string[] =>
+      sources.reduce((t, source) => t.split(source).join(''), s).match(/\d+(?:,\d{3})*(?:\.\d+)?%?/g) ?? [];
     const walk = (value: unknown): void => {
       if (typeof value === 'number' && Number.isFinite(value)) {
         known.add(formatSignificant(value, 3));
@@ -321,5 +327,21 @@ describe('pooledParagraph', () => {
 
   it('writes no NaN, Infinity, undefined or empty figure', () => {
     expect(text).not.toMatch(/NaN|Infinity|undefined|—/);
+  });
+
+  it('cites its sources by DOI, or journal and year, unless a report gives its own citation marks', () => {
+    expect(text).toContain('(doi:10.1016/0197-2456(86)90046-2)');
+    expect(text).toContain('(doi:10.1111/j.1467-985X.2008.00552.x)');
+    expect(text).toContain('(doi:10.1002/sim.8766; Biometrika 1931;22:353–361; Psychol Bull 1995;118:155–164)');
+    const cited: string[] = [];
+    const marked = pooledParagraph(summary, (keys) => {
+      cited.push(...keys);
+      return `[${keys.join(', ')}]`;
+    });
+    expect(marked).toContain('1/(SE² + τ²) [DERSIMONIAN-LAIRD-1986]');
+    expect(marked).not.toContain('doi:');
+    expect(new Set(cited)).toEqual(
+      new Set(['DERSIMONIAN-LAIRD-1986', 'HIGGINS-THOMPSON-SPIEGELHALTER-2009', 'VAL-CONT', 'WISHART-1931', 'OLKIN-FINN-1995']),
+    );
   });
 });
