@@ -15,7 +15,9 @@ function populationRows(population: Population): string[][] {
     if (typeof value !== 'number' && range === undefined && source === null && spec.defaultText === undefined) return [];
     const shown = typeof value === 'number' ? withUnit(value, spec.unit) : `default: ${spec.defaultText ?? 'none'}`;
     const rangeText = range === undefined ? '' : `${enteredNumber(range.low)} to ${enteredNumber(range.high)}`;
-    const sourceText = spec.group === 'anticipated' ? (source ?? 'source not stated') : '';
+    // A default follows from the rules of the method, not from a source the authors must give.
+    const stated = typeof value === 'number' || range !== undefined;
+    const sourceText = spec.group !== 'anticipated' ? '' : (source ?? (stated ? 'source not stated' : 'default'));
     return [[spec.label, GROUP_WORDS[spec.group], shown, rangeText, sourceText]];
   });
 }

@@ -59,7 +59,7 @@ td.num { text-align: right; white-space: nowrap; }
 td.text { min-width: 19mm; }
 td.text:nth-child(2) { min-width: 24mm; }
 th { overflow-wrap: normal; hyphens: manual; }
-tfoot td, tfoot td.num { border-top: 0.8pt solid #333; border-bottom: none; font-weight: bold; white-space: normal; }
+tfoot td { border-top: 0.8pt solid #333; border-bottom: none; font-weight: bold; }
 .table-note { font-size: 7.4pt; color: #333; margin: 0 0 5mm; }
 figure { margin: 3mm 0 6mm; break-inside: avoid; page-break-inside: avoid; }
 figure svg { width: 100%; height: auto; display: block; }

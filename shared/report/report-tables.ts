@@ -87,7 +87,7 @@ export function recruitmentTable({ rows, totals, totalRequiredN }: ReportRows): 
     ]),
     footer: [
       '',
-      'Total',
+      totals.longestMonths === null ? 'Total' : 'Total; the longest recruitment',
       formatCount(totalRequiredN),
       '',
       '',
@@ -95,7 +95,7 @@ export function recruitmentTable({ rows, totals, totalRequiredN }: ReportRows): 
       '',
       formatCount(totals.enrolmentTarget),
       '',
-      totals.longestMonths === null ? '' : `longest ${formatMonths(totals.longestMonths)}`,
+      totals.longestMonths === null ? '' : formatMonths(totals.longestMonths),
       '',
       totals.exceeding > 0 ? `${totals.exceeding} exceed` : '',
     ],
