@@ -10,6 +10,7 @@ import { renderHtml } from '@shared/report/render-html';
 import { renderMarkdown } from '@shared/report/render-markdown';
 import { renderText } from '@shared/report/render-text';
 import type { Planner } from '@shared/summary/comparison';
+import { pooledReportSections } from '@shared/summary/pooled-report-section';
 import { PdfUnavailableError } from './chromium-pdf';
 
 export type ReportFormat = 'pdf' | 'md' | 'txt';
@@ -52,7 +53,8 @@ export async function reportFileContent(request: ReportFileRequest): Promise<Uin
   const doc = planReport({
     project: request.project,
     planner: request.planner,
-    ...(request.extraSections === undefined ? {} : { extraSections: request.extraSections }),
+    // The across-sites section (pooled and both aims) comes first among the extra sections.
+    extraSections: [...pooledReportSections(request.project), ...(request.extraSections ?? [])],
     reproducibility: {
       appName: request.appName,
       appVersion: request.appVersion,

@@ -4,6 +4,7 @@ import { justificationDocument } from '@shared/report/plan-justification';
 import { renderMarkdown } from '@shared/report/render-markdown';
 import { renderText } from '@shared/report/render-text';
 import type { Planner } from '@shared/summary/comparison';
+import { pooledReportSections } from '@shared/summary/pooled-report-section';
 import { call } from '../api/client';
 import type { PickPurpose } from './FilePicker';
 
@@ -47,7 +48,7 @@ export function ReportDialog({ project, planPath, planner, baseName, pick, onClo
   const copy = (as: 'text' | 'markdown'): void => {
     let text: string;
     try {
-      const doc = justificationDocument({ project, planner });
+      const doc = justificationDocument({ project, planner, extraSections: pooledReportSections(project) });
       text = as === 'text' ? renderText(doc) : renderMarkdown(doc);
     } catch (error) {
       setOutcome({ ok: false, text: `The justification text could not be made: ${message(error)}` });

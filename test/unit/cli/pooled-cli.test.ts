@@ -91,6 +91,21 @@ describe('plan with pooled settings', () => {
     expect(markdown.stdout).not.toMatch(/\n{3,}/);
   }, 60_000);
 
+  it('--report writes the across-sites section with its sources numbered among the report’s references', async () => {
+    const file = withPooled('report.plumb', { aim: 'pooled', measures: { slope: SLOPE } });
+    const target = path.join(work, 'report ü.md');
+    const run = await plan(file, '--report', target);
+    expect(run.code).toBe(0);
+    const report = readFileSync(target, 'utf8');
+    expect(report).toContain('Precision across sites');
+    expect(report).toMatch(/Higgins–Thompson–Spiegelhalter 95% prediction interval .* \[\d+\]\./);
+    expect(report).toContain('A re-evaluation of random-effects meta-analysis. J R Stat Soc A 2009');
+    expect(report).toContain('| Site | Proposed n | Capacity | Own required n | Enrol | Months |');
+    const plain = path.join(work, 'site-specific.md');
+    await plan(withPooled('report-site.plumb', { aim: 'site-specific', measures: { slope: SLOPE } }), '--report', plain);
+    expect(readFileSync(plain, 'utf8')).not.toContain('Precision across sites');
+  }, 60_000);
+
   it('the both aim explains why the demo cannot meet every site’s own targets and the pooled ones', async () => {
     const run = await plan(withPooled('both.plumb', { aim: 'both', measures: { slope: SLOPE } }));
     expect(run.stdout).toContain('No proposal (infeasible):');
