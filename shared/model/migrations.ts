@@ -7,16 +7,12 @@
 // the current version. The runner works on a deep copy, sets `schemaVersion` after each step
 // itself, and the final result is checked against projectSchema as any freshly opened file is.
 //
-// To add a migration (for example when version 2 adds the binary outcome):
-//   1. In shared/model/project.ts, change the schema and set SCHEMA_VERSION = 2.
-//   2. Append one entry to MIGRATIONS:
-//        {
-//          from: 1,
-//          summary: 'plans gain an outcome-specific populations list',
-//          migrate: (plan) => ({ ...plan, populations: ... }),
-//        },
-//   3. Keep test/unit/model/fixtures/schema-1.plumb as it is (it becomes the input of the new step),
-//      copy a version-2 file next to it as schema-2.plumb, and add a test for the step.
+// To add a migration (as version 2 did for the binary outcome, see addBinaryOutcomeType):
+//   1. In shared/model/project.ts, change the schema and raise SCHEMA_VERSION by one (to N).
+//   2. Append one entry to MIGRATIONS: { from: N - 1, summary: '…', migrate: (plan) => … }.
+//   3. Keep the older test/unit/model/fixtures/schema-K.plumb files as they are (they become the
+//      inputs of the new step), add a version-N file next to them as schema-N.plumb, and add a
+//      test for the step.
 //   4. Run `npm run schema:write` to regenerate schema/plan.schema.json.
 // The test "the shipped table is a complete chain" fails until steps 2 and 3 are done.
 
@@ -32,8 +28,29 @@ export interface Migration {
   readonly migrate: (plan: PlanData) => PlanData;
 }
 
-/** The shipped migrations, oldest first. Empty while SCHEMA_VERSION is 1: no older format exists. */
-export const MIGRATIONS: readonly Migration[] = [];
+/**
+ * 1 → 2: version 2 adds the binary outcome type (populations become a choice on `outcome`, the
+ * plan's `outcome` may be "binary", and `updating` gains the binary development settings). Every
+ * version-1 plan is a continuous plan whose fields keep their names and meaning in version 2, so
+ * the step states the outcome type explicitly and changes nothing else; a plan that says
+ * anything other than continuous is refused, since version 1 had no other type.
+ */
+function addBinaryOutcomeType(plan: PlanData): PlanData {
+  const outcome = plan['outcome'];
+  if (outcome !== undefined && outcome !== 'continuous') {
+    throw new Error(`a schema-1 plan is for a continuous outcome, but this one says "outcome": ${JSON.stringify(outcome)}`);
+  }
+  return { ...plan, outcome: 'continuous' };
+}
+
+/** The shipped migrations, oldest first. */
+export const MIGRATIONS: readonly Migration[] = [
+  {
+    from: 1,
+    summary: 'the binary outcome type is added; a version-1 plan is a continuous plan and keeps every field',
+    migrate: addBinaryOutcomeType,
+  },
+];
 
 export type MigrationErrorCode = 'no-migration' | 'migration-failed' | 'bad-table';
 

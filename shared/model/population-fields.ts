@@ -1,7 +1,14 @@
-// What each number of a continuous population means, for people: label, unit, default and the
-// allowed range as the schema enforces it. The editor, the report's assumptions table and the
+// What each number of a population means, for people: label, unit, default and the allowed range
+// as the schema enforces it, per outcome type. The editor, the report's assumptions table and the
 // command line read these, so a field is described once.
-import type { ContinuousAnticipatedKey } from './project';
+import {
+  CALIBRATION_INTERCEPT_LIMIT,
+  CALIBRATION_SLOPE_MAX,
+  LP_MEAN_LIMIT,
+  LP_SD_RANGE,
+} from '../engine/binary/validate-binary-population-input';
+import { MAX_C_FOR_FIT } from '../engine/binary/fit-normal-lp';
+import type { BinaryRangeKey, ContinuousAnticipatedKey, OutcomeType } from './project';
 
 export type FieldGroup = 'anticipated' | 'precision' | 'recruitment';
 
@@ -18,7 +25,7 @@ export interface FieldSpec {
   readonly group: FieldGroup;
   readonly help: string;
   /** For anticipated values: the key of its low/high range. */
-  readonly rangeKey?: ContinuousAnticipatedKey;
+  readonly rangeKey?: ContinuousAnticipatedKey | BinaryRangeKey;
 }
 
 export const CONTINUOUS_FIELDS: readonly FieldSpec[] = [
@@ -194,3 +201,138 @@ export const CONTINUOUS_FIELDS: readonly FieldSpec[] = [
     help: 'When the data already exist (a cohort or registry), the precision this n gives is shown instead of a plan.',
   },
 ];
+
+function sharedField(path: string): FieldSpec {
+  const spec = CONTINUOUS_FIELDS.find((f) => f.path === path);
+  if (spec === undefined) throw new Error(`no field description for ${path}`);
+  return spec;
+}
+
+/**
+ * The numbers of a binary-outcome population. The risk thresholds for net benefit are a list
+ * (edited as one), and whether the net-benefit width is standardised is a yes/no setting; the O/E
+ * target is either `precision.oe.width` or both `precision.oe.lower` and `precision.oe.upper`.
+ */
+export const BINARY_FIELDS: readonly FieldSpec[] = [
+  {
+    path: 'anticipated.outcomeProportion',
+    label: 'Anticipated outcome proportion',
+    unit: '',
+    allowed: 'between 0 and 1 (exclusive)',
+    required: true,
+    group: 'anticipated',
+    help: 'Share of participants expected to have the outcome (the event rate) in this population.',
+    rangeKey: 'outcomeProportion',
+  },
+  {
+    path: 'anticipated.cStatistic',
+    label: 'Anticipated C-statistic',
+    unit: '',
+    allowed: `between 0.5 and 1 (exclusive); below ${MAX_C_FOR_FIT} when the linear predictor is fitted to it`,
+    required: false,
+    group: 'anticipated',
+    help: 'Area under the ROC curve expected here. 0.5 is excluded because it is a model that ranks no better than chance (nothing to validate), 1 because it is a perfect model. With the outcome proportion it gives the distribution of the linear predictor, unless that is given below.',
+    rangeKey: 'cStatistic',
+  },
+  {
+    path: 'anticipated.lpMean',
+    label: 'Mean of the linear predictor',
+    unit: 'log-odds',
+    allowed: `between −${LP_MEAN_LIMIT} and ${LP_MEAN_LIMIT}; with its SD`,
+    defaultText: 'fitted to outcome proportion and C',
+    required: false,
+    group: 'anticipated',
+    help: "Mean of the model's linear predictor (log-odds of the predicted risk) in this population, if known from a previous validation. Give the SD too.",
+    rangeKey: 'lpMean',
+  },
+  {
+    path: 'anticipated.lpSd',
+    label: 'SD of the linear predictor',
+    unit: 'log-odds',
+    allowed: `from ${LP_SD_RANGE.min} to ${LP_SD_RANGE.max}; with its mean`,
+    defaultText: 'fitted to outcome proportion and C',
+    required: false,
+    group: 'anticipated',
+    help: "SD of the model's linear predictor in this population. Give the mean too.",
+    rangeKey: 'lpSd',
+  },
+  {
+    path: 'anticipated.calibrationIntercept',
+    label: 'Anticipated calibration intercept',
+    unit: 'log-odds',
+    allowed: `between −${CALIBRATION_INTERCEPT_LIMIT} and ${CALIBRATION_INTERCEPT_LIMIT}`,
+    defaultText: '0',
+    required: false,
+    group: 'anticipated',
+    help: 'Anticipated miscalibration: logit P(outcome) = intercept + slope × linear predictor. 0 and 1 mean well calibrated.',
+    rangeKey: 'calibrationIntercept',
+  },
+  {
+    path: 'anticipated.calibrationSlope',
+    label: 'Anticipated calibration slope',
+    unit: '',
+    allowed: `greater than 0, at most ${CALIBRATION_SLOPE_MAX}`,
+    defaultText: '1',
+    required: false,
+    group: 'anticipated',
+    help: '1 means predictions are neither too extreme nor too modest; below 1, too extreme.',
+    rangeKey: 'calibrationSlope',
+  },
+  sharedField('precision.confidence'),
+  {
+    path: 'precision.oe.width',
+    label: 'Target CI width for O/E',
+    unit: '',
+    allowed: 'greater than 0',
+    defaultText: '0.2',
+    required: false,
+    group: 'precision',
+    help: 'Total width of the CI for O/E (observed ÷ expected events) around a well-calibrated O/E of 1: the CI runs from e^(−z·SE) to e^(z·SE) on the ratio scale, and its width is their difference.',
+  },
+  {
+    path: 'precision.oe.lower',
+    label: 'Lower limit of the target CI for O/E',
+    unit: '',
+    allowed: 'greater than 0, below 1; with the upper limit',
+    required: true,
+    group: 'precision',
+    help: 'The CI for O/E expected around an O/E of 1, e.g. 0.9 to 1.1; the SE of ln(O/E) is (ln upper − ln lower) ÷ 2z.',
+  },
+  {
+    path: 'precision.oe.upper',
+    label: 'Upper limit of the target CI for O/E',
+    unit: '',
+    allowed: 'above 1; with the lower limit',
+    required: true,
+    group: 'precision',
+    help: 'The CI for O/E expected around an O/E of 1, e.g. 0.9 to 1.1.',
+  },
+  sharedField('precision.slope.width'),
+  {
+    path: 'precision.cStatistic.width',
+    label: 'Target CI width for the C-statistic',
+    unit: '',
+    allowed: 'greater than 0',
+    defaultText: '0.1',
+    required: false,
+    group: 'precision',
+    help: 'Full width of the confidence interval for the C-statistic.',
+  },
+  {
+    path: 'precision.netBenefit.width',
+    label: 'Target CI width for net benefit',
+    unit: '',
+    allowed: 'greater than 0',
+    defaultText: '0.2',
+    required: false,
+    group: 'precision',
+    help: 'Full width of the CI for net benefit at each risk threshold, or for standardised net benefit (net benefit ÷ outcome proportion) when that is chosen.',
+  },
+  ...CONTINUOUS_FIELDS.filter((f) => f.group === 'recruitment'),
+];
+
+/** The field descriptions of each outcome type. */
+export const POPULATION_FIELDS: Readonly<Record<OutcomeType, readonly FieldSpec[]>> = {
+  continuous: CONTINUOUS_FIELDS,
+  binary: BINARY_FIELDS,
+};

@@ -1,7 +1,7 @@
 // Operations on the populations of a plan: duplicate one, import some from another plan, export
 // one as a plan of its own. Pure functions returning new documents; every result is re-checked
 // against projectSchema, so an operation can never produce a plan that would not open again.
-import { populationSchema, projectSchema } from './project';
+import { continuousPopulationSchema, projectSchema } from './project';
 import type { Population, Project } from './project';
 import { checkProject, listProblems } from './plan-file';
 import type { Result } from './result';
@@ -9,8 +9,8 @@ import type { Result } from './result';
 export type PopulationOpErrorCode = 'no-such-population' | 'outcome-mismatch' | 'invalid';
 export type PopulationOpResult<T> = Result<T, PopulationOpErrorCode>;
 
-const ID_MAX = populationSchema.shape.id.maxLength ?? 100;
-const NAME_MAX = populationSchema.shape.name.maxLength ?? 200;
+const ID_MAX = continuousPopulationSchema.shape.id.maxLength ?? 100;
+const NAME_MAX = continuousPopulationSchema.shape.name.maxLength ?? 200;
 const PLAN_NAME_MAX = projectSchema.shape.name.maxLength ?? 200;
 
 /** Cuts `text` to at most `max` UTF-16 units (what the schema counts) without splitting a character. */

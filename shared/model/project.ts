@@ -1,10 +1,20 @@
 // The project document: the single truth for what a plan file holds. The command line, the
 // app, the reports and the JSON Schema published in schema/ are all derived from these schemas.
 import { z } from 'zod';
+import { MAX_C_FOR_FIT } from '../engine/binary/fit-normal-lp';
+import { maxCoxSnellR2 } from '../engine/binary/max-cox-snell-r2';
+import {
+  CALIBRATION_INTERCEPT_LIMIT,
+  CALIBRATION_SLOPE_MAX,
+  LP_MEAN_LIMIT,
+  LP_SD_RANGE,
+} from '../engine/binary/validate-binary-population-input';
+import { DEFAULT_BINARY_PRECISION } from '../engine/binary/binary-population-input';
+import { formatSignificant } from '../format/numbers';
 import { simulationsSchema } from './simulation-record';
 
 export const FORMAT_TAG = 'plumbline-plan';
-export const SCHEMA_VERSION = 1;
+export const SCHEMA_VERSION = 2;
 export const FILE_EXTENSION = '.plumb';
 
 const finite = (what: string) =>
@@ -90,15 +100,20 @@ export const recruitmentSchema = z.object({
 });
 export type Recruitment = z.infer<typeof recruitmentSchema>;
 
+/** What every population has, whatever its outcome type. */
+const populationIdentity = {
+  id: z.string().min(1, { error: 'population id must not be empty' }).max(100),
+  name: z
+    .string({ error: 'population name must be text' })
+    .trim()
+    .min(1, { error: 'population name must not be empty' })
+    .max(200, { error: 'population name must be at most 200 characters' }),
+  notes: z.string().max(20_000).default(''),
+};
+
 export const continuousPopulationSchema = z
   .object({
-    id: z.string().min(1, { error: 'population id must not be empty' }).max(100),
-    name: z
-      .string({ error: 'population name must be text' })
-      .trim()
-      .min(1, { error: 'population name must not be empty' })
-      .max(200, { error: 'population name must be at most 200 characters' }),
-    notes: z.string().max(20_000).default(''),
+    ...populationIdentity,
     outcome: z.literal('continuous'),
     anticipated: continuousAnticipatedSchema,
     /** Optional low/high range per anticipated value, for the worst case and sensitivity curves. */
@@ -137,8 +152,235 @@ export const continuousPopulationSchema = z
   });
 export type ContinuousPopulation = z.infer<typeof continuousPopulationSchema>;
 
-export const populationSchema = continuousPopulationSchema;
+// ---- Binary outcomes (an event within a period, a diagnosis): the project-file mirror of the
+// engine's BinaryPopulationInput, with every domain rule of validateBinaryPopulationInput stated
+// here so that bad input is refused at this edge with the field named.
+
+const C_RANGE_WHY =
+  '0.5 is a model that ranks patients no better than chance, so there is no discrimination to validate; 1 is a perfect model';
+
+/** Strictly between 0.5 and 1: a C-statistic (area under the ROC curve). */
+const cStatisticValue = (what: string) =>
+  z
+    .number({ error: `${what} must be a number` })
+    .gt(0.5, { error: `${what} must be greater than 0.5 and less than 1 (${C_RANGE_WHY})` })
+    .lt(1, { error: `${what} must be greater than 0.5 and less than 1 (${C_RANGE_WHY})` });
+
+/** A finite number with |v| at most `limit`. */
+const withinPlusMinus = (what: string, limit: number, why: string) =>
+  finite(what).refine((v) => Math.abs(v) <= limit, { error: `${what} must lie between −${limit} and ${limit} (${why})` });
+
+export const netBenefitThresholdSchema = z
+  .object({
+    /** Risk above which a patient would be offered the intervention. */
+    threshold: openUnit('risk threshold'),
+    /** Anticipated sensitivity and specificity at the threshold: both or neither (then computed from the LP). */
+    sensitivity: openUnit('anticipated sensitivity at the threshold').optional(),
+    specificity: openUnit('anticipated specificity at the threshold').optional(),
+  })
+  .superRefine((t, ctx) => {
+    if ((t.sensitivity === undefined) !== (t.specificity === undefined)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [t.sensitivity === undefined ? 'sensitivity' : 'specificity'],
+        message:
+          'give the sensitivity and the specificity at this threshold together, or neither (then both are computed from the linear predictor)',
+      });
+    }
+  });
+export type NetBenefitThreshold = z.infer<typeof netBenefitThresholdSchema>;
+
+/** Most risk thresholds per population (one net-benefit criterion each). */
+export const MAX_THRESHOLDS = 20;
+
+export const binaryAnticipatedSchema = z
+  .object({
+    /** Proportion of participants expected to have the outcome in this population. */
+    outcomeProportion: openUnit('anticipated outcome proportion'),
+    /** Anticipated C-statistic (area under the ROC curve) in this population. */
+    cStatistic: cStatisticValue('anticipated C-statistic').optional(),
+    /** Mean and SD of the model's linear predictor (log-odds) here; both or neither. */
+    lpMean: withinPlusMinus(
+      'mean of the linear predictor',
+      LP_MEAN_LIMIT,
+      'a mean log-odds beyond that gives almost everyone a risk of essentially 0 or 1',
+    ).optional(),
+    lpSd: finite('SD of the linear predictor')
+      .refine((v) => v >= LP_SD_RANGE.min && v <= LP_SD_RANGE.max, {
+        error: `SD of the linear predictor must be from ${LP_SD_RANGE.min} to ${LP_SD_RANGE.max} (below that the model gives everyone nearly the same risk and its calibration slope cannot be estimated; above it nearly all risks are 0 or 1)`,
+      })
+      .optional(),
+    /** Anticipated miscalibration: logit P(Y = 1) = intercept + slope·LP; defaults 0 and 1. */
+    calibrationIntercept: withinPlusMinus(
+      'anticipated calibration intercept',
+      CALIBRATION_INTERCEPT_LIMIT,
+      'log-odds; beyond that the model is not worth validating',
+    ).optional(),
+    calibrationSlope: finite('anticipated calibration slope')
+      .refine((v) => v > 0 && v <= CALIBRATION_SLOPE_MAX, {
+        error: `anticipated calibration slope must be greater than 0 and at most ${CALIBRATION_SLOPE_MAX} (a slope of 0 or less means the model ranks risks the wrong way round or not at all)`,
+      })
+      .optional(),
+    /** Risk thresholds for net benefit; one criterion per threshold. */
+    thresholds: z
+      .array(netBenefitThresholdSchema)
+      .max(MAX_THRESHOLDS, { error: `at most ${MAX_THRESHOLDS} risk thresholds per population` })
+      .default([]),
+  })
+  .superRefine((a, ctx) => {
+    if ((a.lpMean === undefined) !== (a.lpSd === undefined)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [a.lpMean === undefined ? 'lpMean' : 'lpSd'],
+        message:
+          'give the mean and the SD of the linear predictor together, or neither (then both are fitted to the outcome proportion and C-statistic)',
+      });
+    }
+    if (a.cStatistic !== undefined && a.lpMean === undefined && !(a.cStatistic < MAX_C_FOR_FIT)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['cStatistic'],
+        input: a.cStatistic,
+        message: `anticipated C-statistic must be below ${formatSignificant(MAX_C_FOR_FIT)} when the linear predictor is fitted to it (beyond that the fit is ill-conditioned); give the mean and SD of the linear predictor instead`,
+      });
+    }
+    const seen = new Set<number>();
+    a.thresholds.forEach((t, i) => {
+      if (seen.has(t.threshold)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['thresholds', i, 'threshold'],
+          input: t.threshold,
+          message: 'risk threshold is listed twice (each threshold gives one criterion)',
+        });
+      }
+      seen.add(t.threshold);
+    });
+  });
+export type BinaryAnticipated = z.infer<typeof binaryAnticipatedSchema>;
+
+/** The anticipated values of a binary population that may have a low/high range. */
+export const BINARY_RANGE_KEYS = [
+  'outcomeProportion',
+  'cStatistic',
+  'lpMean',
+  'lpSd',
+  'calibrationIntercept',
+  'calibrationSlope',
+] as const;
+export type BinaryRangeKey = (typeof BINARY_RANGE_KEYS)[number];
+
+/**
+ * The O/E target, in one of two conventions: a total CI width around O/E = 1 (`width`), or the
+ * lower and upper limits of the CI expected around O/E = 1 (`lower`, `upper`). Exactly one.
+ */
+export const oeTargetSchema = z
+  .object({
+    width: positive('target CI width for O/E').optional(),
+    lower: positive('lower limit of the target CI for O/E').optional(),
+    upper: positive('upper limit of the target CI for O/E').optional(),
+  })
+  .superRefine((t, ctx) => {
+    const limits = t.lower !== undefined || t.upper !== undefined;
+    if (t.width !== undefined && limits) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['width'],
+        message: 'give the O/E target either as a CI width or as CI limits, not both',
+      });
+    } else if (t.width === undefined && !limits) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['width'],
+        message: 'give the O/E target as a total CI width around 1, or as the lower and upper limits of the CI',
+      });
+    } else if (limits && (t.lower === undefined || t.upper === undefined)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [t.lower === undefined ? 'lower' : 'upper'],
+        message: 'give the lower and the upper limit of the target CI for O/E together',
+      });
+    } else if (limits && t.lower !== undefined && t.upper !== undefined && !(t.lower < 1 && t.upper > 1)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [t.lower < 1 ? 'upper' : 'lower'],
+        message:
+          'the target CI for O/E must have its lower limit below 1 and its upper limit above 1 (the limits are those expected around a well-calibrated O/E of 1)',
+      });
+    }
+  });
+export type OeTargetSettings = z.infer<typeof oeTargetSchema>;
+
+const binaryDefaults = DEFAULT_BINARY_PRECISION;
+
+export const binaryPrecisionSchema = z.object({
+  confidence: openUnit('confidence level').default(binaryDefaults.confidence),
+  oe: oeTargetSchema.default({ width: 0.2 }),
+  slope: z
+    .object({ width: positive('target CI width for the calibration slope').default(binaryDefaults.slope.width) })
+    .prefault({}),
+  cStatistic: z
+    .object({ width: positive('target CI width for the C-statistic').default(binaryDefaults.cStatistic.width) })
+    .prefault({}),
+  netBenefit: z
+    .object({
+      width: positive('target CI width for net benefit').default(binaryDefaults.netBenefit.width),
+      /** When true the width is for standardised net benefit (net benefit ÷ outcome proportion). */
+      standardised: z
+        .boolean({ error: 'whether the net-benefit width is standardised must be true or false' })
+        .default(binaryDefaults.netBenefit.standardised),
+    })
+    .prefault({}),
+});
+export type BinaryPrecisionSettings = z.infer<typeof binaryPrecisionSchema>;
+
+export const binaryPopulationSchema = z
+  .object({
+    ...populationIdentity,
+    outcome: z.literal('binary'),
+    anticipated: binaryAnticipatedSchema,
+    /** Optional low/high range per anticipated value, for the worst case and sensitivity curves. */
+    ranges: z.partialRecord(z.enum(BINARY_RANGE_KEYS), rangeSchema).default({}),
+    /** Free-text source of each assumption (a paper, a registry, a judgement). */
+    sources: z.record(z.string(), z.string().max(5_000)).default({}),
+    precision: binaryPrecisionSchema.prefault({}),
+    recruitment: recruitmentSchema.prefault({}),
+  })
+  .superRefine((population, ctx) => {
+    // Each end of a range, put in place of the base value, must give admissible anticipated values
+    // (the rules between fields included); every domain here is an interval, so the values
+    // between the ends are then admissible too.
+    for (const [key, range] of Object.entries(population.ranges)) {
+      for (const end of ['low', 'high'] as const) {
+        const checked = binaryAnticipatedSchema.safeParse({ ...population.anticipated, [key]: range[end] });
+        if (!checked.success) {
+          const own = checked.error.issues.find((issue) => issue.path[0] === key) ?? checked.error.issues[0];
+          ctx.addIssue({
+            code: 'custom',
+            path: ['ranges', key, end],
+            input: range[end],
+            message: `${end} end of the range: ${own?.message ?? 'not allowed'}`,
+          });
+        }
+      }
+    }
+  });
+export type BinaryPopulation = z.infer<typeof binaryPopulationSchema>;
+
+export const populationSchema = z.discriminatedUnion('outcome', [continuousPopulationSchema, binaryPopulationSchema], {
+  error: 'population outcome must be "continuous" or "binary"',
+});
 export type Population = z.infer<typeof populationSchema>;
+
+/** Any anticipated value that may have a low/high range, whatever the outcome type. */
+export type AnticipatedRangeKey = ContinuousAnticipatedKey | BinaryRangeKey;
+
+/** The outcome types a plan can be for; one model has one, chosen once per plan. */
+export const OUTCOME_TYPES = ['continuous', 'binary'] as const;
+export type OutcomeType = (typeof OUTCOME_TYPES)[number];
+
+/** The largest Cox–Snell R² any binary outcome allows (its maximum at an outcome proportion of 0.5). */
+export const MAX_COX_SNELL_R2 = maxCoxSnellR2(0.5);
 
 export const updatingSchema = z.object({
   /** When on, the development minimums are computed and the larger n is taken. */
@@ -149,6 +391,19 @@ export const updatingSchema = z.object({
   optimismMargin: openUnit('allowed optimism in R²').default(0.05),
   /** Which form of the shrinkage criterion to use (see the engine's dev-shrinkage). */
   shrinkageForm: z.enum(['adjusted-r2-link', 'closed-form']).default('adjusted-r2-link'),
+  /** Binary outcomes: anticipated optimism-adjusted Cox–Snell R² of the updated model. */
+  anticipatedCoxSnellR2: openUnit('anticipated Cox–Snell R²')
+    .refine((v) => v < MAX_COX_SNELL_R2, {
+      error: `anticipated Cox–Snell R² must be below ${formatSignificant(MAX_COX_SNELL_R2)} (no binary outcome allows more)`,
+    })
+    .optional(),
+  /** Binary outcomes: margin of error for the overall risk; the engine's default 0.05 when absent. */
+  riskMargin: finite('margin for the overall risk')
+    .refine((v) => v > 0 && v < 0.5, {
+      error:
+        'margin for the overall risk must be greater than 0 and below 0.5 (a risk lies in [0, 1], so a margin of 0.5 says nothing)',
+    })
+    .optional(),
 });
 export type Updating = z.infer<typeof updatingSchema>;
 
@@ -243,12 +498,77 @@ export type Pooled = z.infer<typeof pooledSchema>;
 export type PooledMeasureKey = keyof Pooled['measures'];
 export type PooledMeasureSettings = NonNullable<Pooled['measures'][PooledMeasureKey]>;
 
-export const projectSchema = z.object({
+/** The strictest outcome proportion of a binary population for the development minimums: the one whose maximum Cox–Snell R² is lowest. */
+function strictestProportion(population: BinaryPopulation): { readonly value: number; readonly where: string } {
+  const range = population.ranges.outcomeProportion;
+  const candidates = [
+    { value: population.anticipated.outcomeProportion, where: '' },
+    ...(range === undefined
+      ? []
+      : [
+          { value: range.low, where: ' (low end of its range)' },
+          { value: range.high, where: ' (high end of its range)' },
+        ]),
+  ];
+  return candidates.reduce((a, b) => (maxCoxSnellR2(b.value) < maxCoxSnellR2(a.value) ? b : a));
+}
+
+/**
+ * Rules across the plan: every population has the plan's outcome type (one model predicts one
+ * outcome type); for a binary plan with model updating on, the anticipated Cox–Snell R² must be
+ * possible at every population's outcome proportion (and below the target shrinkage factor).
+ */
+function checkPlanRules(
+  project: {
+    readonly outcome: OutcomeType;
+    readonly updating: Updating;
+    readonly populations: readonly Population[];
+  },
+  ctx: z.RefinementCtx,
+): void {
+  project.populations.forEach((population, i) => {
+    if (population.outcome !== project.outcome) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['populations', i, 'outcome'],
+        input: population.outcome,
+        message: `population "${population.name}" is for a ${population.outcome} outcome, but the plan is for a ${project.outcome} outcome (one model predicts one outcome type, so every population takes the plan's)`,
+      });
+    }
+  });
+  const r2 = project.updating.anticipatedCoxSnellR2;
+  if (project.outcome !== 'binary' || !project.updating.enabled || r2 === undefined) return;
+  if (!(project.updating.targetShrinkage > r2)) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['updating', 'targetShrinkage'],
+      input: project.updating.targetShrinkage,
+      message: `target shrinkage factor must be above the anticipated Cox–Snell R² ${formatSignificant(r2)} (the shrinkage criterion takes ln(1 − R²/S))`,
+    });
+  }
+  let strictest: { readonly name: string; readonly value: number; readonly where: string; readonly max: number } | null = null;
+  for (const population of project.populations) {
+    if (population.outcome !== 'binary') continue;
+    const phi = strictestProportion(population);
+    const max = maxCoxSnellR2(phi.value);
+    if (strictest === null || max < strictest.max) strictest = { name: population.name, ...phi, max };
+  }
+  if (strictest !== null && !(r2 < strictest.max)) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['updating', 'anticipatedCoxSnellR2'],
+      input: r2,
+      message: `anticipated Cox–Snell R² must be below ${formatSignificant(strictest.max)}, the largest possible at the outcome proportion ${formatSignificant(strictest.value)} of population "${strictest.name}"${strictest.where}`,
+    });
+  }
+}
+
+const projectFields = z.object({
   format: z.literal(FORMAT_TAG, { error: `not a plan file (format tag must be "${FORMAT_TAG}")` }),
   schemaVersion: z.literal(SCHEMA_VERSION),
   name: z.string().trim().min(1, { error: 'project name must not be empty' }).max(200),
   description: z.string().max(20_000).default(''),
-  outcome: z.literal('continuous'),
+  outcome: z.enum(OUTCOME_TYPES, { error: 'plan outcome must be "continuous" or "binary"' }),
   model: modelSchema.prefault({}),
   updating: updatingSchema.prefault({}),
   study: studySchema.prefault({}),
@@ -258,5 +578,7 @@ export const projectSchema = z.object({
   /** The latest simulation check per population id (optional: plans without one stay valid). */
   simulations: simulationsSchema.optional(),
 });
+/** The plan document: its fields, and the rules across them (checkPlanRules). */
+export const projectSchema = projectFields.superRefine(checkPlanRules);
 export type Project = z.infer<typeof projectSchema>;
 export type ProjectInput = z.input<typeof projectSchema>;

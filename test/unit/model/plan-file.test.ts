@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parsePlanText, parsePlanValue, preparePlanText, serialisePlan } from '@shared/model/plan-file';
 import type { PlanParseResult } from '@shared/model/plan-file';
+import { MIGRATIONS, oldestReadableVersion } from '@shared/model/migrations';
 import type { Migration } from '@shared/model/migrations';
 import { FORMAT_TAG, SCHEMA_VERSION, projectSchema } from '@shared/model/project';
 import type { Project } from '@shared/model/project';
@@ -90,7 +91,7 @@ describe('parsePlanText: refusals', () => {
     const error = errorOf(parsePlanText(JSON.stringify({ ...minimal, schemaVersion: 0 })));
     expect(error.code).toBe('invalid');
     expect(error.message).toBe(
-      `This plan says it uses schema 0, which this version of Plumbline cannot read (it reads schemas ${SCHEMA_VERSION} to ${SCHEMA_VERSION}).`,
+      `This plan says it uses schema 0, which this version of Plumbline cannot read (it reads schemas ${oldestReadableVersion(MIGRATIONS, SCHEMA_VERSION)} to ${SCHEMA_VERSION}).`,
     );
   });
 
@@ -98,7 +99,9 @@ describe('parsePlanText: refusals', () => {
     const plan = JSON.parse(await fixture('schema-1.plumb')) as {
       populations: { anticipated: Record<string, unknown> }[];
       name: string;
+      schemaVersion: number;
     };
+    plan.schemaVersion = SCHEMA_VERSION; // a version-1 continuous plan is a valid current plan too
     plan.name = '   ';
     const second = plan.populations[1];
     if (second === undefined) throw new Error('fixture has two populations');
@@ -143,9 +146,9 @@ describe('parsePlanText: refusals', () => {
 });
 
 describe('parsePlanText: acceptance', () => {
-  it('opens the committed version-1 file without migrating it', async () => {
+  it('opens the committed version-1 file, bringing it up to the current version', async () => {
     const result = parsePlanText(await fixture('schema-1.plumb'));
-    expect(result.ok && result.migratedFrom).toBeNull();
+    expect(result.ok && result.migratedFrom).toBe(1);
     const project = projectOf(result);
     expect(project.populations.map((p) => p.id)).toEqual(['harbour-general', 'lakeside-registry']);
     // defaults filled in from the schema
@@ -169,7 +172,7 @@ describe('parsePlanText: acceptance', () => {
       },
     ];
     const old = { format: FORMAT_TAG, schemaVersion: 0, title: 'Old plan', outcome: 'continuous', populations: [] };
-    const result = parsePlanValue(old, { migrations: table });
+    const result = parsePlanValue(old, { migrations: [...table, ...MIGRATIONS] });
     expect(result.ok && result.migratedFrom).toBe(0);
     expect(projectOf(result)).toMatchObject({ name: 'Old plan', schemaVersion: SCHEMA_VERSION });
     expect(old).toHaveProperty('title', 'Old plan');
@@ -178,7 +181,10 @@ describe('parsePlanText: acceptance', () => {
   it('reports problems found after migrating as problems of the migrated plan', () => {
     const table: Migration[] = [{ from: 0, summary: 'no change', migrate: (plan) => plan }];
     const error = errorOf(
-      parsePlanValue({ format: FORMAT_TAG, schemaVersion: 0, outcome: 'continuous', populations: [] }, { migrations: table }),
+      parsePlanValue(
+        { format: FORMAT_TAG, schemaVersion: 0, outcome: 'continuous', populations: [] },
+        { migrations: [...table, ...MIGRATIONS] },
+      ),
     );
     expect(error.code).toBe('invalid');
     expect(error.message).toMatch(/^The plan has 1 problem after updating it from schema 0:\nname: /);
@@ -194,7 +200,7 @@ describe('parsePlanText: acceptance', () => {
         },
       },
     ];
-    const error = errorOf(parsePlanValue({ ...minimal, schemaVersion: 0 }, { migrations: table }));
+    const error = errorOf(parsePlanValue({ ...minimal, schemaVersion: 0 }, { migrations: [...table, ...MIGRATIONS] }));
     expect(error).toEqual({
       code: 'invalid',
       message: 'Updating the plan from schema 0 to 1 failed: populations missing',

@@ -14,7 +14,7 @@ describe('schema/plan.schema.json', () => {
 
   it('pins the format tag and schema version, and requires the fields a plan cannot do without', () => {
     const schema = planJsonSchema() as {
-      properties: Record<string, { const?: unknown; items?: { required?: string[] } }>;
+      properties: Record<string, { const?: unknown; items?: { oneOf?: { required?: string[] }[] } }>;
       required: string[];
     };
     expect(schema.properties['format']?.const).toBe(FORMAT_TAG);
@@ -22,8 +22,10 @@ describe('schema/plan.schema.json', () => {
     expect(schema.required).toEqual(expect.arrayContaining(['format', 'schemaVersion', 'name', 'outcome', 'populations']));
     // fields with defaults are optional in a file (the "input" view), e.g. description
     expect(schema.required).not.toContain('description');
-    expect(schema.properties['populations']?.items?.required).toEqual(
-      expect.arrayContaining(['id', 'name', 'outcome', 'anticipated', 'precision']),
-    );
+    // one population variant per outcome type: continuous needs its CITL width, binary targets all have defaults
+    const [continuous, binary] = schema.properties['populations']?.items?.oneOf ?? [];
+    expect(continuous?.required).toEqual(expect.arrayContaining(['id', 'name', 'outcome', 'anticipated', 'precision']));
+    expect(binary?.required).toEqual(expect.arrayContaining(['id', 'name', 'outcome', 'anticipated']));
+    expect(binary?.required).not.toContain('precision');
   });
 });

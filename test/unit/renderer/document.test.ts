@@ -4,7 +4,7 @@ import type { Project } from '@shared/model/project';
 
 const project = {
   format: 'plumbline-plan',
-  schemaVersion: 1,
+  schemaVersion: 2,
   name: 'Plan',
   description: '',
   outcome: 'continuous',

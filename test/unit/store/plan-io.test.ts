@@ -154,7 +154,7 @@ describe('writePlanFile', () => {
   it('refuses an invalid plan with the field problems and does not touch the file', async () => {
     await writePlanFile(target, newEmptyProject());
     const before = await snapshot(target);
-    const result = await writePlanFile(target, { ...newEmptyProject(), populations: [{ id: 'x' }] });
+    const result = await writePlanFile(target, { ...newEmptyProject(), populations: [{ id: 'x', outcome: 'continuous' }] });
     expect(result).toMatchObject({ ok: false, error: { code: 'invalid' } });
     expect(!result.ok && result.error.problems?.map((p) => p.path)).toEqual(expect.arrayContaining(['populations[0].name']));
     expect(await snapshot(target)).toEqual(before);

@@ -5,7 +5,7 @@ import { projectSchema, type Project } from '@shared/model/project';
 
 const project: Project = projectSchema.parse({
   format: 'plumbline-plan',
-  schemaVersion: 1,
+  schemaVersion: 2,
   name: 'P',
   outcome: 'continuous',
   populations: ['a', 'b', 'c'].map((id) => ({
@@ -24,7 +24,8 @@ function countingPlanner(): { planner: Planner; calls: string[] } {
     planner: {
       plan(population) {
         calls.push(population.id);
-        return { criteria: [], requiredN: population.anticipated.rSquared * 1000, binding: null };
+        const rSquared = population.outcome === 'continuous' ? population.anticipated.rSquared : 0;
+        return { criteria: [], requiredN: rSquared * 1000, binding: null };
       },
     },
   };
@@ -39,7 +40,7 @@ describe('row cache', () => {
     const edited = {
       ...project,
       populations: project.populations.map((p) =>
-        p.id === 'b' ? { ...p, anticipated: { ...p.anticipated, rSquared: 0.7 } } : p,
+        p.id === 'b' && p.outcome === 'continuous' ? { ...p, anticipated: { ...p.anticipated, rSquared: 0.7 } } : p,
       ),
     };
     const rows = cache.rows(edited);
