@@ -19,6 +19,11 @@ export interface PopulationPlanLike {
   readonly requiredN: number | null;
   readonly binding: string | null;
   readonly precisionAtAvailableN?: readonly PrecisionAtN[] | null;
+  /** Binary outcomes: expected events at the required n (exact and rounded up). */
+  readonly events?: { readonly exact: number; readonly whole: number } | null;
+  readonly eventsPerParameter?: number | null;
+  /** Cautions about the plan that do not stop it (e.g. few expected events). */
+  readonly warnings?: readonly string[];
 }
 
 export interface WorstCaseLike {
@@ -46,6 +51,12 @@ export interface ComparisonRow {
   readonly precisionAtAvailableN: readonly PrecisionAtN[] | null;
   /** Set when the population could not be planned (the message says why). */
   readonly problem: string | null;
+  /** Binary outcomes: expected events at the required n; null for continuous outcomes or no n. */
+  readonly events?: { readonly exact: number; readonly whole: number } | null;
+  /** Binary outcomes with model updating: events per predictor parameter at the required n. */
+  readonly eventsPerParameter?: number | null;
+  /** Cautions about the plan that do not stop it (e.g. few expected events). */
+  readonly warnings?: readonly string[];
 }
 
 export interface ComparisonTotals {
@@ -101,6 +112,9 @@ export function comparisonRow(population: Population, project: Project, planner:
       availableN: recruitment.availableN ?? null,
       precisionAtAvailableN: null,
       problem: error instanceof Error ? error.message : String(error),
+      events: null,
+      eventsPerParameter: null,
+      warnings: [],
     };
   }
   const target = plan.requiredN === null ? null : enrolmentTarget(plan.requiredN, recruitment.missingOutcomeFraction);
@@ -123,6 +137,9 @@ export function comparisonRow(population: Population, project: Project, planner:
     availableN: recruitment.availableN ?? null,
     precisionAtAvailableN: plan.precisionAtAvailableN ?? null,
     problem: null,
+    events: plan.events ?? null,
+    eventsPerParameter: plan.eventsPerParameter ?? null,
+    warnings: plan.warnings ?? [],
   };
 }
 

@@ -18,6 +18,9 @@ const SHORT_HEADERS: Readonly<Record<string, string>> = {
   'dev-optimism': 'Dev. optimism',
   'dev-residual-sd': 'Dev. resid. SD',
   'dev-intercept': 'Dev. intercept',
+  oe: 'O/E',
+  'c-statistic': 'C',
+  'dev-overall-risk': 'Dev. overall risk',
 };
 
 /** The short header of a criterion column (the label itself when no short form is known). */

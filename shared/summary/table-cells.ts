@@ -13,13 +13,20 @@ export interface CellTable {
 
 const FEASIBILITY_WORDS = { fits: 'fits', exceeds: 'exceeds', unknown: 'unknown' } as const;
 
+/** True when any row expects events (a binary-outcome plan): the table then has an events column. */
+export function hasEvents(rows: readonly ComparisonRow[]): boolean {
+  return rows.some((row) => row.events !== undefined && row.events !== null);
+}
+
 export function comparisonCells(rows: readonly ComparisonRow[], totals: ComparisonTotals): CellTable {
   const columns = criterionColumns(rows);
+  const withEvents = hasEvents(rows);
   const header = [
     'Rank',
     'Population',
     ...columns.map((c) => `${c.header} (n)`),
     'Required n',
+    ...(withEvents ? ['Events at required n'] : []),
     'Binding criterion',
     'Worst-case n',
     'Worst case from',
@@ -35,6 +42,7 @@ export function comparisonCells(rows: readonly ComparisonRow[], totals: Comparis
     row.name,
     ...columns.map((c) => row.criteria.find((r) => r.id === c.id)?.n ?? null),
     row.requiredN,
+    ...(withEvents ? [row.events?.whole ?? null] : []),
     row.bindingLabel,
     row.worstCase?.requiredN ?? null,
     row.worstCase?.assumption ?? null,
@@ -49,6 +57,7 @@ export function comparisonCells(rows: readonly ComparisonRow[], totals: Comparis
     'Total',
     `${totals.populations} populations`,
     ...columns.map(() => null),
+    ...(withEvents ? [null] : []),
     null,
     null,
     null,

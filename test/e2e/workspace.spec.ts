@@ -3,8 +3,8 @@ import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Page } from '@playwright/test';
 import { expect, REPO_ROOT, test } from './harness/fixtures';
-import { projectSchema, type Project } from '../../shared/model/project';
-import { planPopulation } from '../../shared/engine/plan/plan-population';
+import { projectSchema, type ContinuousPopulation, type Project } from '../../shared/model/project';
+import { enginePlanner } from '../../shared/summary/planner';
 
 async function demoProject(): Promise<Project> {
   return projectSchema.parse(JSON.parse(await readFile(path.join(REPO_ROOT, 'demo', 'consortium-continuous.plumb'), 'utf8')));
@@ -13,7 +13,7 @@ async function demoProject(): Promise<Project> {
 /** Population names in the order the engine ranks them (required n, largest first). */
 function engineRanking(project: Project): { name: string; requiredN: number | null; binding: string | null }[] {
   return project.populations
-    .map((p) => ({ ...planPopulation(p, project), name: p.name }))
+    .map((p) => ({ ...enginePlanner.plan(p, project), name: p.name }))
     .sort((a, b) => (b.requiredN ?? -1) - (a.requiredN ?? -1))
     .map(({ name, requiredN, binding }) => ({ name, requiredN, binding }));
 }
@@ -48,7 +48,7 @@ test('editing a population re-ranks the table and changes its binding criterion;
   const project = await demoProject();
   const last = engineRanking(project).at(-1);
   if (last === undefined) throw new Error('the demo has no populations');
-  const target = project.populations.find((p) => p.name === last.name);
+  const target = project.populations.find((p): p is ContinuousPopulation => p.name === last.name && p.outcome === 'continuous');
   if (target === undefined) throw new Error('population not found');
 
   await page.getByTestId('comparison-table').locator('tbody tr', { hasText: last.name }).click();
@@ -60,7 +60,7 @@ test('editing a population re-ranks the table and changes its binding criterion;
   const edited: Project = {
     ...project,
     populations: project.populations.map((p) =>
-      p.id === target.id ? { ...p, anticipated: { ...p.anticipated, rSquared: 0.12 } } : p,
+      p.id === target.id ? { ...target, anticipated: { ...target.anticipated, rSquared: 0.12 } } : p,
     ),
   };
   const after = engineRanking(edited);
@@ -69,10 +69,12 @@ test('editing a population re-ranks the table and changes its binding criterion;
   await expect.poll(async () => (await tableNames(page))[0]).toContain(last.name);
   await expect(page.getByTestId('dirty-mark')).toBeVisible();
   const bindingLabel =
-    planPopulation(
-      edited.populations.find((p) => p.id === target.id)!,
-      edited,
-    ).criteria.find((c) => c.id === after[0]?.binding)?.label ?? '';
+    enginePlanner
+      .plan(
+        edited.populations.find((p) => p.id === target.id)!,
+        edited,
+      )
+      .criteria.find((c) => c.id === after[0]?.binding)?.label ?? '';
   expect(await requiredCell(page, last.name)).toContain(bindingLabel);
 
   await r2.fill('1.5');
@@ -133,7 +135,7 @@ test('an existing cohort shows the precision its fixed n gives and which targets
   const fixed = project.populations.find((p) => p.recruitment.availableN !== undefined);
   if (fixed === undefined) throw new Error('the demo should have a population with a fixed n');
   await page.getByTestId('comparison-table').locator('tbody tr', { hasText: fixed.name }).click();
-  const plan = planPopulation(fixed, project);
+  const plan = enginePlanner.plan(fixed, project);
   const panel = page.getByTestId('precision-table');
   await expect(panel.locator('tbody tr')).toHaveCount(plan.precisionAtAvailableN?.length ?? -1);
   const missed = (plan.precisionAtAvailableN ?? []).filter((p) => p.meets === false).length;

@@ -8,7 +8,7 @@ import { precisionFromExpectedShrinkage, sizedDevelopmentCriterion } from './dev
 import { maxCoxSnellR2 } from './max-cox-snell-r2';
 import { requireDevelopmentInputs } from './require-development-inputs';
 
-const TEXT: BinaryCriterionText = {
+export const TEXT: BinaryCriterionText = {
   id: 'dev-optimism',
   label: 'Small optimism in Nagelkerke R² (development)',
   purpose: 'development',

@@ -7,7 +7,7 @@ import type { BinaryDevelopmentInputs } from './binary-development-inputs';
 import { precisionFromExpectedShrinkage, sizedDevelopmentCriterion } from './development-sizing';
 import { requireDevelopmentInputs } from './require-development-inputs';
 
-const TEXT: BinaryCriterionText = {
+export const TEXT: BinaryCriterionText = {
   id: 'dev-shrinkage',
   label: 'Expected shrinkage (development)',
   purpose: 'development',

@@ -11,7 +11,7 @@ import { binarySizedCriterion } from './binary-criterion-result';
 import type { BinaryDevelopmentInputs } from './binary-development-inputs';
 import { requireDevelopmentInputs } from './require-development-inputs';
 
-const TEXT: BinaryCriterionText = {
+export const TEXT: BinaryCriterionText = {
   id: 'dev-overall-risk',
   label: 'Precise overall risk (development)',
   purpose: 'development',

@@ -1,9 +1,10 @@
+import type { LpSummary } from '../binary/plan-binary-population';
 import { developmentPrecisionAtN, validationPrecisionAtN } from '../continuous/evaluate-continuous';
 import type { CriterionResult, PrecisionAtN } from '../types';
 import type { ContinuousPopulation, Project } from '../../model/project';
 import { populationCriteria } from './population-criteria';
 import { developmentInputsOf, validationInputsOf } from './population-inputs';
-import { requiredSize } from './required-size';
+import { purposeSizes } from './required-size';
 
 /** Everything the plan says about one population. */
 export interface PopulationPlan {
@@ -23,6 +24,14 @@ export interface PopulationPlan {
   readonly precisionAtAvailableN: readonly PrecisionAtN[] | null;
   /** Criteria whose target was not reached, each with its reason, for display beside the number. */
   readonly problems: readonly string[];
+  /** Binary outcomes (absent for continuous): expected events at the required n, exact and rounded up. */
+  readonly events?: { readonly exact: number; readonly whole: number } | null;
+  /** Binary outcomes with model updating: events per predictor parameter at the required n. */
+  readonly eventsPerParameter?: number | null;
+  /** Binary outcomes: the linear-predictor distribution used (given, or fitted to proportion and C). */
+  readonly lp?: LpSummary | null;
+  /** Binary outcomes: cautions about the plan (few events; a given LP implying another proportion). */
+  readonly warnings?: readonly string[];
 }
 
 /**
@@ -33,9 +42,7 @@ export interface PopulationPlan {
  */
 export function planPopulation(population: ContinuousPopulation, project: Pick<Project, 'updating'>): PopulationPlan {
   const criteria = populationCriteria(population, project);
-  const overall = requiredSize(criteria);
-  const validation = requiredSize(criteria.filter((c) => c.purpose === 'validation'));
-  const development = requiredSize(criteria.filter((c) => c.purpose === 'development'));
+  const sizes = purposeSizes(criteria, project.updating.enabled);
   const availableN = population.recruitment.availableN ?? null;
   const precisionAtAvailableN =
     availableN === null
@@ -50,10 +57,7 @@ export function planPopulation(population: ContinuousPopulation, project: Pick<P
     id: population.id,
     name: population.name,
     criteria,
-    requiredN: overall.requiredN,
-    binding: overall.binding,
-    validationN: validation.requiredN,
-    developmentN: project.updating.enabled ? development.requiredN : null,
+    ...sizes,
     availableN,
     precisionAtAvailableN,
     problems: criteria.filter((c) => c.status === 'not-converged').map((c) => `${c.label}: ${c.reason ?? 'not reached'}`),

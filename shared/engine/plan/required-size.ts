@@ -33,3 +33,27 @@ export function requiredSize(criteria: readonly SizedLike[]): RequiredSize {
   }
   return best === null ? { requiredN: null, binding: null } : { requiredN: best.n, binding: best.id };
 }
+
+/** The sizes a population plan states: the requirement and what sets it, by purpose. */
+export interface PurposeSizes extends RequiredSize {
+  readonly validationN: number | null;
+  /** Null when the development minimums are not included (model updating off) or none could be sized. */
+  readonly developmentN: number | null;
+}
+
+/**
+ * requiredSize over all the criteria, over the validation criteria and, when `withDevelopment`,
+ * over the development criteria (METHODS.md 1.5), for any outcome type.
+ * @example purposeSizes(criteria, false).developmentN // null
+ */
+export function purposeSizes(
+  criteria: readonly (SizedLike & { readonly purpose: 'validation' | 'development' })[],
+  withDevelopment: boolean,
+): PurposeSizes {
+  const overall = requiredSize(criteria);
+  return {
+    ...overall,
+    validationN: requiredSize(criteria.filter((c) => c.purpose === 'validation')).requiredN,
+    developmentN: withDevelopment ? requiredSize(criteria.filter((c) => c.purpose === 'development')).requiredN : null,
+  };
+}

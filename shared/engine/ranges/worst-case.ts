@@ -14,7 +14,10 @@ export interface WorstCase {
   readonly assumption: string;
 }
 
-function describe(range: AssumptionRange): string {
+/** What worstAcross reads of one assumption's range, whatever the outcome type. */
+type RangeLike<K> = Pick<AssumptionRange, 'label' | 'low' | 'base' | 'high' | 'worst'> & { readonly key: K };
+
+function describe(range: RangeLike<unknown>): string {
   const v = range.worst.value;
   const shown = Math.abs(v) < 1e-300 ? '≈ 0' : formatSignificant(v);
   if (v === range.low.value) return `${range.label} at its low end ${shown}`;
@@ -29,9 +32,16 @@ function describe(range: AssumptionRange): string {
  * @example worstCase(population, project)?.assumption // "Anticipated R² at 0.3333 within its range"
  */
 export function worstCase(population: ContinuousPopulation, project: Pick<Project, 'updating'>): WorstCase | null {
-  let worst: AssumptionRange | null = null;
-  for (const range of assumptionRanges(population, project))
-    if (worst === null || asksForMore(range.worst, worst.worst)) worst = range;
+  return worstAcross(assumptionRanges(population, project));
+}
+
+/**
+ * The largest requirement over one-at-a-time ranges of any outcome type, with the assumption that
+ * produced it named; null when there is no range.
+ */
+export function worstAcross<K>(ranges: readonly RangeLike<K>[]): (Omit<WorstCase, 'key'> & { readonly key: K }) | null {
+  let worst: RangeLike<K> | null = null;
+  for (const range of ranges) if (worst === null || asksForMore(range.worst, worst.worst)) worst = range;
   if (worst === null) return null;
   return {
     requiredN: worst.worst.requiredN,
