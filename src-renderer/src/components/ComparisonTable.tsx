@@ -8,9 +8,10 @@ import {
   useTable,
   type SortingState,
 } from '@tanstack/react-table';
-import { formatCount, formatMonths } from '@shared/format/numbers';
+import { formatCount, formatMonths, formatSignificant } from '@shared/format/numbers';
 import type { ComparisonRow, ComparisonTotals } from '@shared/summary/comparison';
 import { criterionColumns, type CriterionColumn } from '@shared/summary/criterion-columns';
+import { hasEvents } from '@shared/summary/table-cells';
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel(), sortFns: { text: sortFn_text } });
 const helper = createColumnHelper<typeof features, ComparisonRow>();
@@ -64,6 +65,22 @@ const FIXED_RENDERERS: Readonly<Record<string, CellRenderer>> = {
     ) : (
       <span title={row.worstCase.assumption}>
         {formatCount(row.worstCase.requiredN)} <span className="muted small">({row.worstCase.assumption})</span>
+      </span>
+    ),
+  events: (row) =>
+    row.events === undefined || row.events === null ? (
+      <span className="muted">—</span>
+    ) : (
+      <span
+        title={`${formatSignificant(row.events.exact)} events expected at the required n${row.eventsPerParameter === undefined || row.eventsPerParameter === null ? '' : `; ${formatSignificant(row.eventsPerParameter, 3)} per predictor parameter`}`}
+      >
+        {formatCount(row.events.whole)}
+        {(row.warnings ?? []).length > 0 ? (
+          <span className="warn-mark" title={(row.warnings ?? []).join('\n')}>
+            {' '}
+            ⚠
+          </span>
+        ) : null}
       </span>
     ),
   enrol: (row) => formatCount(row.enrolmentTarget),
@@ -131,12 +148,21 @@ export function ComparisonTable({
   const specKey = currentSpec.map((c) => `${c.id}|${c.header}|${c.label}|${c.purpose}`).join('\n');
   // Rebuilt only when the set of criterion columns changes, not on every edit.
   const columnsSpec = useMemo(() => currentSpec, [specKey]);
+  // Binary plans: expected events beside the required n (planners think in events).
+  const withEvents = hasEvents(rows);
+  const fixedIds = useMemo(
+    () => ['name', 'required', ...(withEvents ? ['events'] : []), 'worst', 'enrol', 'months', 'finish', 'feasible'],
+    [withEvents],
+  );
 
   const columns = useMemo(
     () =>
       helper.columns([
         helper.accessor((row) => row.name, { id: 'name', header: 'Population', sortFn: 'text' }),
         helper.accessor((row) => row.requiredN ?? -1, { id: 'required', header: 'Required n' }),
+        ...(withEvents
+          ? [helper.accessor((row) => row.events?.whole ?? -1, { id: 'events', header: 'Events at required n' })]
+          : []),
         helper.accessor((row) => row.worstCase?.requiredN ?? -1, { id: 'worst', header: 'Worst case n' }),
         helper.accessor((row) => row.enrolmentTarget ?? -1, { id: 'enrol', header: 'Enrolment target' }),
         helper.accessor((row) => row.months ?? Number.POSITIVE_INFINITY, { id: 'months', header: 'Months to recruit' }),
@@ -149,17 +175,17 @@ export function ComparisonTable({
           }),
         ),
       ]),
-    [columnsSpec],
+    [columnsSpec, withEvents],
   );
   const renderers = useMemo(
     () => [
-      ...['name', 'required', 'worst', 'enrol', 'months', 'finish', 'feasible'].map((id) => ({
+      ...fixedIds.map((id) => ({
         id,
         render: FIXED_RENDERERS[id] as CellRenderer,
       })),
       ...columnsSpec.map((spec) => ({ id: `criterion:${spec.id}`, render: (row: ComparisonRow) => criterionCell(row, spec) })),
     ],
-    [columnsSpec],
+    [columnsSpec, fixedIds],
   );
 
   const data = useMemo(() => [...rows], [rows]);
@@ -255,6 +281,7 @@ export function ComparisonTable({
             <th scope="row">Total</th>
             <td>{totals.populations} populations</td>
             <td />
+            {withEvents ? <td /> : null}
             <td />
             <td data-testid="total-enrolment">
               <strong>{formatCount(totals.enrolmentTarget)}</strong>

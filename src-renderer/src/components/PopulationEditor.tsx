@@ -1,21 +1,27 @@
-import { CONTINUOUS_FIELDS, type FieldGroup, type FieldSpec } from '@shared/model/population-fields';
-import type { ContinuousPopulation } from '@shared/model/project';
+import { POPULATION_FIELDS, type FieldGroup, type FieldSpec } from '@shared/model/population-fields';
+import type { BinaryPopulation, Population, Range } from '@shared/model/project';
 import { applyFieldEdit, parseNumberText } from '../state/field-edit';
 import { getAt } from '../state/paths';
+import { LpNote } from './LpNote';
 import { NumberField } from './NumberField';
+import { OeTargetFields } from './OeTargetFields';
+import { ThresholdList } from './ThresholdList';
 import { VarianceHelper } from './VarianceHelper';
 import { WidthHelper } from './WidthHelper';
 
 export interface PopulationEditorProps {
-  readonly population: ContinuousPopulation;
+  readonly population: Population;
   /** Records an accepted edit (undoable) under a label such as "R² of Harbour General". */
-  readonly onChange: (label: string, next: ContinuousPopulation) => void;
+  readonly onChange: (label: string, next: Population) => void;
   /** Reports a field that holds a rejected entry (message) or no longer does (null). */
   readonly onInvalid: (path: string, message: string | null) => void;
   readonly onDuplicate: () => void;
   readonly onRemove: () => void;
   readonly onExport?: () => void;
 }
+
+/** The O/E target's fields, shown by OeTargetFields in the convention chosen. */
+const OE_PREFIX = 'precision.oe.';
 
 const GROUP_TITLES: Readonly<Record<FieldGroup, string>> = {
   anticipated: 'Anticipated values (with optional low–high range)',
@@ -66,16 +72,17 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
   const rangeFields = (spec: FieldSpec) => {
     if (spec.rangeKey === undefined) return null;
     const key = spec.rangeKey;
-    const range = population.ranges[key];
+    const ranges: Readonly<Partial<Record<string, Range>>> = population.ranges;
+    const range = ranges[key];
     const commitEnd = (end: 'low' | 'high', text: string): string | null => {
       const parsed = parseNumberText(text);
       if (!parsed.ok) return parsed.message;
       const other = end === 'low' ? range?.high : range?.low;
       if (parsed.value === undefined) {
         if (other === undefined || range === undefined) {
-          const rest = { ...population.ranges };
-          delete rest[key];
-          onChange(`range of ${spec.label} of ${population.name}`, { ...population, ranges: rest });
+          const edit = applyFieldEdit(population, `ranges.${key}`, undefined, spec.label);
+          if (!edit.ok) return edit.message;
+          onChange(`range of ${spec.label} of ${population.name}`, edit.population);
           return null;
         }
         return 'give both ends of the range, or clear both';
@@ -119,7 +126,7 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
                   const sources = { ...population.sources };
                   if (text === '') delete sources[key];
                   else sources[key] = text;
-                  onChange(`source of ${spec.label} of ${population.name}`, { ...population, sources });
+                  setDirect('sources', `source of ${spec.label}`, sources);
                 }
               }}
             />
@@ -141,6 +148,8 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
   };
 
   const groups: FieldGroup[] = ['anticipated', 'precision', 'recruitment'];
+  const specs = POPULATION_FIELDS[population.outcome];
+  const binary: BinaryPopulation | null = population.outcome === 'binary' ? population : null;
   return (
     <section className="editor" aria-labelledby="editor-title">
       <div className="editor-head">
@@ -191,16 +200,57 @@ export function PopulationEditor({ population, onChange, onInvalid, onDuplicate,
       {groups.map((group) => (
         <fieldset key={group} className="group">
           <legend>{GROUP_TITLES[group]}</legend>
-          {CONTINUOUS_FIELDS.filter((spec) => spec.group === group).map((spec) => (
-            <div key={spec.path} className="field-block">
-              {field(spec)}
-              {group === 'anticipated' ? rangeFields(spec) : null}
-            </div>
-          ))}
-          {group === 'anticipated' ? (
+          {binary !== null && group === 'precision' ? (
+            <OeTargetFields
+              target={binary.precision.oe}
+              specs={specs.filter((spec) => spec.path.startsWith(OE_PREFIX))}
+              field={field}
+              onSwitch={(next) => setDirect('precision.oe', 'O/E target convention', next)}
+            />
+          ) : null}
+          {specs
+            .filter((spec) => spec.group === group && !spec.path.startsWith(OE_PREFIX))
+            .map((spec) => (
+              <div key={spec.path} className="field-block">
+                {field(spec)}
+                {group === 'anticipated' ? rangeFields(spec) : null}
+              </div>
+            ))}
+          {binary !== null && group === 'anticipated' ? (
+            <>
+              <LpNote anticipated={binary.anticipated} />
+              <ThresholdList
+                thresholds={binary.anticipated.thresholds}
+                onCommit={(next, label) => {
+                  const edit = applyFieldEdit(binary, 'anticipated.thresholds', next, label);
+                  if (!edit.ok) {
+                    onInvalid('anticipated.thresholds', edit.message);
+                    return edit.message;
+                  }
+                  onInvalid('anticipated.thresholds', null);
+                  onChange(`${label} of ${population.name}`, edit.population);
+                  return null;
+                }}
+              />
+            </>
+          ) : null}
+          {binary !== null && group === 'precision' ? (
+            <label className="toggle">
+              <input
+                type="checkbox"
+                data-testid="field-precision.netBenefit.standardised"
+                checked={binary.precision.netBenefit.standardised}
+                onChange={(event) =>
+                  setDirect('precision.netBenefit.standardised', 'net-benefit width standardised', event.target.checked)
+                }
+              />{' '}
+              The net-benefit width is for standardised net benefit (net benefit ÷ outcome proportion)
+            </label>
+          ) : null}
+          {population.outcome === 'continuous' && group === 'anticipated' ? (
             <VarianceHelper onUse={(variance) => setDirect('anticipated.outcomeVariance', 'outcome variance', variance)} />
           ) : null}
-          {group === 'precision' ? (
+          {population.outcome === 'continuous' && group === 'precision' ? (
             <WidthHelper
               confidence={population.precision.confidence}
               onUse={(width) => setDirect('precision.citl.width', 'CITL width', width)}

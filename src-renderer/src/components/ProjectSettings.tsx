@@ -1,8 +1,14 @@
-import { projectSchema, type Project } from '@shared/model/project';
+import { OUTCOME_TYPES, projectSchema, type OutcomeType, type Project } from '@shared/model/project';
 import { fieldProblems } from '@shared/model/validation-message';
 import { parseNumberText } from '../state/field-edit';
 import { getAt, setAt } from '../state/paths';
+import { CoxSnellHelper } from './CoxSnellHelper';
 import { NumberField } from './NumberField';
+
+const OUTCOME_WORDS: Readonly<Record<OutcomeType, string>> = {
+  continuous: 'continuous (a measurement)',
+  binary: 'binary (an event or a diagnosis)',
+};
 
 export interface ProjectSettingsProps {
   readonly project: Project;
@@ -85,6 +91,7 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
     );
   };
   const updating = project.updating;
+  const binary = project.outcome === 'binary';
   return (
     <details className="settings" open>
       <summary>Plan settings: model, updating and study window</summary>
@@ -95,6 +102,35 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
           {text('description', 'Description', true)}
           {text('model.name', 'Model being validated')}
           {text('model.reportedPerformance', 'Reported development performance', true)}
+          <div className="field">
+            <label htmlFor="project-outcome">Outcome type</label>
+            {project.populations.length === 0 ? (
+              <select
+                id="project-outcome"
+                data-testid="project-outcome"
+                value={project.outcome}
+                onChange={(event) => {
+                  const edit = applyProjectEdit(project, 'outcome', event.target.value);
+                  if (edit.ok) onChange(`outcome type ${event.target.value}`, edit.project);
+                }}
+              >
+                {OUTCOME_TYPES.map((outcome) => (
+                  <option key={outcome} value={outcome}>
+                    {OUTCOME_WORDS[outcome]}
+                  </option>
+                ))}
+              </select>
+            ) : (
+              <output id="project-outcome" data-testid="project-outcome">
+                {OUTCOME_WORDS[project.outcome]}
+              </output>
+            )}
+            <span className="hint">
+              {project.populations.length === 0
+                ? 'Chosen once: one model predicts one outcome type, so it is fixed when the first population is added.'
+                : 'Fixed: one model predicts one outcome type, and this plan has populations.'}
+            </span>
+          </div>
         </fieldset>
         <fieldset className="group">
           <legend>Model updating</legend>
@@ -114,33 +150,59 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
             allowed: 'a whole number, at least 1',
             help: 'Count every parameter the updated model estimates: each dummy, spline term and interaction.',
           })}
-          {number('updating.anticipatedAdjustedRSquared', 'Anticipated adjusted R²', {
-            allowed: 'between 0 and 1 (exclusive)',
-            help: 'Optimism-adjusted R² expected of the updated model.',
-          })}
+          {binary
+            ? number('updating.anticipatedCoxSnellR2', 'Anticipated Cox–Snell R²', {
+                allowed: "greater than 0, below its maximum at every population's outcome proportion",
+                help: 'Optimism-adjusted Cox–Snell R² expected of the updated model; the helper below derives it from a reported C-statistic, Nagelkerke R² or likelihood-ratio statistic.',
+              })
+            : number('updating.anticipatedAdjustedRSquared', 'Anticipated adjusted R²', {
+                allowed: 'between 0 and 1 (exclusive)',
+                help: 'Optimism-adjusted R² expected of the updated model.',
+              })}
           {number('updating.targetShrinkage', 'Target shrinkage factor', {
             allowed: 'between 0 and 1 (exclusive)',
             defaultText: '0.9',
             help: 'Expected shrinkage of at least this value.',
           })}
-          {number('updating.optimismMargin', 'Allowed optimism in R²', {
+          {number('updating.optimismMargin', binary ? 'Allowed optimism in Nagelkerke R²' : 'Allowed optimism in R²', {
             allowed: 'between 0 and 1 (exclusive)',
             defaultText: '0.05',
-            help: 'Apparent minus adjusted R² at most this value.',
+            help: binary
+              ? 'Apparent minus optimism-adjusted Nagelkerke R² at most this value.'
+              : 'Apparent minus adjusted R² at most this value.',
           })}
-          <label className="field">
-            Shrinkage criterion form{' '}
-            <select
-              value={updating.shrinkageForm}
-              onChange={(event) => {
-                const edit = applyProjectEdit(project, 'updating.shrinkageForm', event.target.value);
-                if (edit.ok) onChange('shrinkage criterion form', edit.project);
+          {binary
+            ? number('updating.riskMargin', 'Margin for the overall risk', {
+                allowed: 'greater than 0, below 0.5',
+                defaultText: '0.05',
+                help: 'The CI for the overall outcome risk should lie within ± this margin.',
+              })
+            : null}
+          {binary ? (
+            <CoxSnellHelper
+              onUse={(value) => {
+                const edit = applyProjectEdit(project, 'updating.anticipatedCoxSnellR2', value);
+                if (!edit.ok) return edit.message;
+                onChange('anticipated Cox–Snell R²', edit.project);
+                return null;
               }}
-            >
-              <option value="adjusted-r2-link">via the adjusted-R² link (reproduces the published 918)</option>
-              <option value="closed-form">closed form used for binary outcomes</option>
-            </select>
-          </label>
+            />
+          ) : null}
+          {binary ? null : (
+            <label className="field">
+              Shrinkage criterion form{' '}
+              <select
+                value={updating.shrinkageForm}
+                onChange={(event) => {
+                  const edit = applyProjectEdit(project, 'updating.shrinkageForm', event.target.value);
+                  if (edit.ok) onChange('shrinkage criterion form', edit.project);
+                }}
+              >
+                <option value="adjusted-r2-link">via the adjusted-R² link (reproduces the published 918)</option>
+                <option value="closed-form">closed form used for binary outcomes</option>
+              </select>
+            </label>
+          )}
         </fieldset>
         <fieldset className="group">
           <legend>Study window</legend>

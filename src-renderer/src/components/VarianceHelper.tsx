@@ -1,17 +1,14 @@
-import { useState } from 'react';
-import { formatSignificant } from '@shared/format/numbers';
-import { DomainError } from '@shared/engine/errors';
 import { logNormalFromQuartiles } from '@shared/engine/helpers/log-normal-from-quartiles';
 import { sdFromIqr } from '@shared/engine/helpers/sd-from-iqr';
 import { varianceFromSd } from '@shared/engine/helpers/variance-from-sd';
 import { wanSdFromFiveNumbers } from '@shared/engine/helpers/wan-sd-from-five-numbers';
 import { wanSdFromIqr } from '@shared/engine/helpers/wan-sd-from-iqr';
 import { wanSdFromRange } from '@shared/engine/helpers/wan-sd-from-range';
-import { parseNumberText } from '../state/field-edit';
+import { MethodHelper, type HelperMethod } from './MethodHelper';
 
 type Method = 'sd' | 'iqr' | 'iqr-n' | 'log-quartiles' | 'range' | 'five';
 
-const METHODS: readonly { id: Method; label: string; inputs: readonly string[]; source: string }[] = [
+const METHODS: readonly HelperMethod<Method>[] = [
   { id: 'sd', label: 'From an SD', inputs: ['SD'], source: 'variance = SD²' },
   { id: 'iqr', label: 'From the IQR (normal outcome)', inputs: ['Q1', 'Q3'], source: 'SD = IQR / 1.349 (normal quantiles)' },
   {
@@ -60,69 +57,15 @@ function compute(method: Method, values: readonly number[]): number {
 
 /** Derives the outcome variance from what a paper reports, and offers to use it. */
 export function VarianceHelper({ onUse }: { readonly onUse: (variance: number) => void }) {
-  const [method, setMethod] = useState<Method>('sd');
-  const [texts, setTexts] = useState<Record<string, string>>({});
-  const spec = METHODS.find((m) => m.id === method) ?? METHODS[0];
-  if (spec === undefined) return null;
-
-  let result: { variance: number } | { error: string } | null = null;
-  const parsed = spec.inputs.map((name) => parseNumberText(texts[`${method}:${name}`] ?? ''));
-  if (parsed.every((p) => p.ok && p.value !== undefined)) {
-    try {
-      result = {
-        variance: compute(
-          method,
-          parsed.map((p) => (p.ok ? (p.value ?? Number.NaN) : Number.NaN)),
-        ),
-      };
-    } catch (error) {
-      result = { error: error instanceof DomainError ? error.message : String(error) };
-    }
-  } else if (parsed.some((p) => !p.ok)) {
-    result = { error: 'Each value must be a number.' };
-  }
-
   return (
-    <fieldset className="helper">
-      <legend>Derive the outcome variance</legend>
-      <label>
-        Method{' '}
-        <select value={method} onChange={(event) => setMethod(event.target.value as Method)}>
-          {METHODS.map((m) => (
-            <option key={m.id} value={m.id}>
-              {m.label}
-            </option>
-          ))}
-        </select>
-      </label>
-      <div className="helper-inputs">
-        {spec.inputs.map((name) => (
-          <label key={name}>
-            {name}{' '}
-            <input
-              type="text"
-              inputMode="decimal"
-              size={7}
-              value={texts[`${method}:${name}`] ?? ''}
-              onChange={(event) => setTexts({ ...texts, [`${method}:${name}`]: event.target.value })}
-            />
-          </label>
-        ))}
-      </div>
-      <p className="hint">{spec.source}</p>
-      {result && 'variance' in result ? (
-        <p>
-          Variance {formatSignificant(result.variance, 5)}{' '}
-          <button type="button" onClick={() => onUse(result.variance)}>
-            Use this variance
-          </button>
-        </p>
-      ) : null}
-      {result && 'error' in result ? (
-        <p className="field-error" role="alert">
-          {result.error}
-        </p>
-      ) : null}
-    </fieldset>
+    <MethodHelper
+      legend="Derive the outcome variance"
+      chooser="Method"
+      methods={METHODS}
+      compute={compute}
+      resultLabel="Variance"
+      useLabel="Use this variance"
+      onUse={onUse}
+    />
   );
 }

@@ -1,6 +1,6 @@
 import { useCallback, useDeferredValue, useMemo, useState } from 'react';
 import type { SortingState } from '@tanstack/react-table';
-import type { ContinuousPopulation, Project } from '@shared/model/project';
+import type { Population, Project } from '@shared/model/project';
 import { comparisonTotals, type Planner } from '@shared/summary/comparison';
 import { createRowCache } from '@shared/summary/row-cache';
 import { comparisonCells, toTsv } from '@shared/summary/table-cells';
@@ -61,7 +61,7 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
   const chartUpdating = useDeferredValue(project.updating);
 
   const replacePopulation = useCallback(
-    (label: string, next: ContinuousPopulation) =>
+    (label: string, next: Population) =>
       onEdit(label, (p) => ({ ...p, populations: p.populations.map((q) => (q.id === next.id ? next : q)) })),
     [onEdit],
   );
@@ -133,6 +133,19 @@ export function Workspace({ project, planner, onEdit, onExportPopulation, onStat
         </div>
         {selected ? (
           <div className="side">
+            {selectedRow !== null && (selectedRow.warnings ?? []).length > 0 ? (
+              <ul
+                className="plan-warnings"
+                data-testid="plan-warnings"
+                aria-label={`Cautions about the plan for ${selected.name}`}
+              >
+                {(selectedRow.warnings ?? []).map((warning) => (
+                  <li key={warning} className="warn-mark">
+                    ⚠ {warning}
+                  </li>
+                ))}
+              </ul>
+            ) : null}
             {selectedRow?.availableN && selectedRow.precisionAtAvailableN ? (
               <PrecisionPanel availableN={selectedRow.availableN} precision={selectedRow.precisionAtAvailableN} />
             ) : null}
