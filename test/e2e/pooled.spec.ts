@@ -74,7 +74,7 @@ test('switching the demo to the pooled aim and entering τ and targets shows the
   expect(serious.map((v) => `${v.id}: ${v.help} (${v.nodes.length}) ${v.nodes[0]?.target.join(' ') ?? ''}`)).toEqual([]);
 });
 
-test('a bad pooled entry is marked on its field with the allowed range, and the rest keeps working', async ({
+test('a bad pooled entry is marked on its field with the allowed range, the rest keeps working, and Undo takes back the aim', async ({
   appPage: page,
 }) => {
   await page.getByTestId('pooled-aim-both').check();
@@ -87,4 +87,7 @@ test('a bad pooled entry is marked on its field with the allowed range, and the 
   );
   await expect(page.getByTestId('pooled-aim-both')).toBeChecked();
   await expect(page.getByTestId('comparison-table')).toBeVisible();
+  await tau.press('Escape');
+  await page.getByRole('button', { name: 'Undo' }).click();
+  await expect(page.getByTestId('pooled-aim-site-specific')).toBeChecked();
 });
