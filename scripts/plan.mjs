@@ -1,4 +1,4 @@
-// `npm run --silent plan -- <plan-file> [--json | --csv | --markdown]` (or `--demo`): builds the
+// `npm run --silent plan -- <plan-file> [--json | --csv | --markdown]` (or `--demo [binary]`): builds the
 // command from src-main/cli/plan.ts when its sources changed (scripts/run-ts.mjs), then runs it.
 // Only the command's own output reaches stdout; the exit status is the command's.
 import path from 'node:path';
@@ -22,5 +22,5 @@ try {
 process.exitCode = await runPlan(process.argv.slice(2), {
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
-  demoPath: path.join(repoRoot, 'demo', 'consortium-continuous.plumb'),
+  demoDir: path.join(repoRoot, 'demo'),
 });

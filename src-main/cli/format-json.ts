@@ -8,8 +8,10 @@ import type { PopulationSimulation } from './simulate-populations';
  * The --json output: `{ "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }`
  * with further fields in each object (status, label, target and reason per criterion; the
  * validation and development minimums, worst case, enrolment and precision at the available n per
- * population; the total and the cautions at the top). With --simulate each population also has a
- * `simulation` field (see simulationJson).
+ * population, and for binary outcomes the expected events at the required n as computed by the
+ * planner, the events per parameter, the linear predictor used and the plan's warnings; the total
+ * and the cautions at the top). With --simulate each population also has a `simulation` field (see
+ * simulationJson).
  */
 export function formatJson(
   plan: ProjectPlan,
@@ -40,6 +42,10 @@ export function formatJson(
       availableN: p.availableN,
       precisionAtAvailableN: p.precisionAtAvailableN,
       problems: p.problems,
+      events: p.events ?? null,
+      eventsPerParameter: p.eventsPerParameter ?? null,
+      lp: p.lp ?? null,
+      warnings: p.warnings ?? [],
       ...(simulations === undefined ? {} : simulationField(simulations, p.id)),
     };
   });

@@ -26,7 +26,7 @@ export function formatMarkdown(project: Project, plan: ProjectPlan, summary: Cel
   for (const p of plan.populations) {
     lines.push('', `## ${cell(p.name)}`, '');
     lines.push(
-      `Required n: **${p.requiredN === null ? '—' : formatCount(p.requiredN)}**${p.binding === null ? '' : ` (binding: \`${p.binding}\`)`}`,
+      `Required n: **${p.requiredN === null ? '—' : formatCount(p.requiredN)}**${p.binding === null ? '' : ` (binding: \`${p.binding}\`)`}${p.events === undefined || p.events === null ? '' : `; expected events ${formatCount(p.events.whole)}`}`,
       '',
     );
     lines.push(

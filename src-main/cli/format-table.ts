@@ -48,15 +48,32 @@ function recruitmentLine(row: ComparisonRow): string | null {
   return `  Enrol ${formatCount(row.enrolmentTarget)}${missing}${pace}${fit}`;
 }
 
+/** Whether the development minimums are included, with the settings they use. */
+function updatingLine(project: Project): string {
+  const u = project.updating;
+  if (!u.enabled) return 'Model updating off: validation criteria only';
+  const p = `P = ${u.predictorParameters ?? 'not given'}`;
+  const given = (value: number | undefined): string => (value === undefined ? 'not given' : formatSignificant(value));
+  return project.outcome === 'binary'
+    ? `Model updating on: development minimums included (${p}, anticipated Cox–Snell R² ${given(u.anticipatedCoxSnellR2)}, target shrinkage ${formatSignificant(u.targetShrinkage)}, allowed optimism in Nagelkerke R² ${formatSignificant(u.optimismMargin)})`
+    : `Model updating on: development minimums included (${p}, anticipated adjusted R² ${given(u.anticipatedAdjustedRSquared)}, shrinkage form ${u.shrinkageForm})`;
+}
+
+/** Binary outcomes: the events expected at the required n (planners think in events). */
+function eventsLine(
+  events: { readonly exact: number; readonly whole: number } | null,
+  perParameter: number | null,
+): string | null {
+  if (events === null) return null;
+  const epp = perParameter === null ? '' : `; ${formatSignificant(perParameter, 3)} events per predictor parameter`;
+  return `  Expected events at the required n: ${formatCount(events.whole)} (${formatSignificant(events.exact)} exactly)${epp}`;
+}
+
 /** The default output: a readable block per population, the total and the cautions line. */
 export function formatTable(project: Project, plan: ProjectPlan, rows: readonly ComparisonRow[]): string {
   const lines: string[] = [project.name];
-  const u = project.updating;
-  lines.push(
-    u.enabled
-      ? `Model updating on: development minimums included (P = ${u.predictorParameters ?? 'not given'}, anticipated adjusted R² ${u.anticipatedAdjustedRSquared === undefined ? 'not given' : formatSignificant(u.anticipatedAdjustedRSquared)}, shrinkage form ${u.shrinkageForm})`
-      : 'Model updating off: validation criteria only',
-  );
+  if (project.outcome === 'binary') lines.push('Outcome type: binary (O/E, calibration slope, C-statistic, net benefit)');
+  lines.push(updatingLine(project));
   const labelWidth = Math.max(10, ...plan.populations.flatMap((p) => p.criteria.map((c) => [...c.label].length)));
   plan.populations.forEach((p, i) => {
     lines.push('');
@@ -67,6 +84,9 @@ export function formatTable(project: Project, plan: ProjectPlan, rows: readonly 
     lines.push(`  ${pad('', 2)}${pad('criterion', labelWidth)} ${pad('n', 9, true)}   target`);
     for (const c of p.criteria) lines.push(criterionLine(c, p.binding, labelWidth));
     for (const problem of p.problems) lines.push(`  ! ${problem}`);
+    const events = eventsLine(p.events ?? null, p.eventsPerParameter ?? null);
+    if (events !== null) lines.push(events);
+    for (const warning of p.warnings ?? []) lines.push(`  ⚠ ${warning}`);
     if (p.worstCase !== null) {
       const worst = p.worstCase.requiredN === null ? 'out of reach' : formatCount(p.worstCase.requiredN);
       lines.push(`  Worst case across the ranges: ${worst} (${p.worstCase.assumption})`);

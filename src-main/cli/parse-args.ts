@@ -2,6 +2,7 @@
 // report file to write.
 import { reportFormatOf } from '../report/report-files';
 
+import type { DemoKind } from '../handlers/load-demo';
 import { SIMULATE_USAGE } from './simulate-args';
 
 export type OutputFormat = 'table' | 'json' | 'csv' | 'markdown';
@@ -9,7 +10,7 @@ export type OutputFormat = 'table' | 'json' | 'csv' | 'markdown';
 export type PlanArgs =
   | {
       readonly kind: 'plan';
-      readonly source: { readonly demo: true } | { readonly demo: false; readonly file: string };
+      readonly source: { readonly demo: true; readonly which: DemoKind } | { readonly demo: false; readonly file: string };
       readonly format: OutputFormat;
       /** --report <file>: write the report there (.pdf, .md or .txt) instead of printing the plan. */
       readonly report?: string;
@@ -23,7 +24,9 @@ export const USAGE = `Usage: npm run --silent plan -- <plan-file> [--json | --cs
 Prints, for each population of the plan, every criterion's minimum n, the required n and the
 criterion that sets it. Without a format option the output is a readable table.
 
-  --demo       use the bundled demo plan (demo/consortium-continuous.plumb)
+  --demo       use the bundled demo plan (demo/consortium-continuous.plumb, a continuous outcome)
+  --demo binary, --demo-binary
+               use the bundled binary-outcome demo plan (demo/consortium-binary.plumb)
   --json       machine-readable JSON: { "populations": [ { "name", "requiredN", "binding", "criteria": [ { "id", "n" } ] } ] }
   --csv        one row per population (RFC 4180)
   --markdown   tables in Markdown
@@ -40,12 +43,20 @@ const FORMATS: Readonly<Record<string, OutputFormat>> = { '--json': 'json', '--c
 /** Reads argv (without the node and script paths). */
 export function parseArgs(argv: readonly string[]): PlanArgs {
   let format: OutputFormat | null = null;
-  let demo = false;
+  let demo: DemoKind | null = null;
+  let afterDemo = false;
   const files: string[] = [];
   let onlyFiles = false;
   let report: string | null = null;
   let expectReport = false;
   for (const arg of argv) {
+    // `--demo binary`: a demo kind right after --demo names which demo.
+    const kindAfterDemo = afterDemo && (arg === 'binary' || arg === 'continuous');
+    afterDemo = false;
+    if (kindAfterDemo) {
+      demo = arg;
+      continue;
+    }
     if (expectReport) {
       report = arg;
       expectReport = false;
@@ -58,7 +69,12 @@ export function parseArgs(argv: readonly string[]): PlanArgs {
     } else if (!onlyFiles && (arg === '--help' || arg === '-h')) {
       return { kind: 'help' };
     } else if (!onlyFiles && arg === '--demo') {
-      demo = true;
+      demo = 'continuous';
+      afterDemo = true;
+    } else if (!onlyFiles && (arg === '--demo-binary' || arg === '--demo=binary')) {
+      demo = 'binary';
+    } else if (!onlyFiles && arg === '--demo=continuous') {
+      demo = 'continuous';
     } else if (!onlyFiles && arg in FORMATS) {
       const chosen = FORMATS[arg] ?? 'table';
       if (format !== null && format !== chosen)
@@ -75,14 +91,14 @@ export function parseArgs(argv: readonly string[]): PlanArgs {
     return { kind: 'usage-error', message: `--report writes a .pdf, .md or .txt file (got ${report})` };
   if (report !== null && format !== null)
     return { kind: 'usage-error', message: '--report writes a file; leave out --json, --csv and --markdown' };
-  if (demo && files.length > 0) return { kind: 'usage-error', message: 'give either a plan file or --demo, not both' };
+  if (demo !== null && files.length > 0) return { kind: 'usage-error', message: 'give either a plan file or --demo, not both' };
   if (files.length > 1) return { kind: 'usage-error', message: `give one plan file (got ${files.length})` };
   const file = files[0];
-  if (!demo && file === undefined)
+  if (demo === null && file === undefined)
     return { kind: 'usage-error', message: 'give a plan file, or --demo for the bundled demo plan' };
   return {
     kind: 'plan',
-    source: file === undefined ? { demo: true } : { demo: false, file },
+    source: file === undefined ? { demo: true, which: demo ?? 'continuous' } : { demo: false, file },
     format: format ?? 'table',
     ...(report === null ? {} : { report }),
   };

@@ -1,25 +1,8 @@
-import { continuousPlanner } from '@shared/engine/plan/continuous-planner';
-import { isContinuousPopulation } from '@shared/engine/plan/plan-project';
-import type { ContinuousPopulation } from '@shared/model/project';
-import type { Planner } from '@shared/summary/comparison';
-
-function continuousOnly(population: { readonly outcome: string }): asserts population is ContinuousPopulation {
-  if (!isContinuousPopulation(population)) {
-    throw new Error(`a population with a ${population.outcome} outcome is not planned by the continuous engine`);
-  }
-}
+import { enginePlanner } from '@shared/summary/planner';
 
 /**
- * The planner behind the command line's comparison rows: the continuous engine, refusing (with
- * the reason, which the row shows) populations of another outcome type.
+ * The planner behind the command line's comparison rows: the app's planner, which sends each
+ * population to the continuous or binary engine by its outcome type and refuses (with the reason,
+ * which the row shows) a population of another type than the plan's.
  */
-export const cliPlanner: Planner = {
-  plan: (population, project) => {
-    continuousOnly(population);
-    return continuousPlanner.plan(population, project);
-  },
-  worstCase: (population, project) =>
-    isContinuousPopulation(population) ? continuousPlanner.worstCase(population, project) : null,
-  sensitivity: (population, project) =>
-    isContinuousPopulation(population) ? continuousPlanner.sensitivity(population, project) : [],
-};
+export const cliPlanner = enginePlanner;

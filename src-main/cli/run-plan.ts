@@ -1,6 +1,7 @@
 // The `plan` command: reads a plan file (or the bundled demo), validates it field by field and
 // prints every population's plan as a table, JSON, CSV or Markdown, or writes its report.
 import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
 import { planProject } from '@shared/engine/plan/plan-project';
 import { parsePlanText } from '@shared/model/plan-file';
 import type { Project } from '@shared/model/project';
@@ -11,6 +12,7 @@ import { formatJson } from './format-json';
 import { formatMarkdown } from './format-markdown';
 import { formatTable } from './format-table';
 import { cliPooledSummary, pooledMarkdownText, pooledTableText, withPooledJson } from './format-pooled';
+import { DEMO_FILES } from '../handlers/load-demo';
 import { parseArgs, USAGE } from './parse-args';
 import { formatSimulationMarkdown, formatSimulationTable } from './format-simulation';
 import { extractSimulateArgs } from './simulate-args';
@@ -25,8 +27,8 @@ export const EXIT_INVALID = 2;
 export interface PlanIo {
   readonly stdout: (text: string) => void;
   readonly stderr: (text: string) => void;
-  /** Absolute path of the bundled demo plan. */
-  readonly demoPath: string;
+  /** Absolute path of the folder holding the bundled demo plans (DEMO_FILES). */
+  readonly demoDir: string;
 }
 
 async function loadProject(path: string, io: PlanIo): Promise<Project | number> {
@@ -62,7 +64,7 @@ export async function runPlan(argv: readonly string[], io: PlanIo): Promise<numb
     io.stderr(`plan: ${args.message}\n\n${USAGE}\n`);
     return EXIT_INVALID;
   }
-  const path = args.source.demo ? io.demoPath : args.source.file;
+  const path = args.source.demo ? join(io.demoDir, DEMO_FILES[args.source.which]) : args.source.file;
   const project = await loadProject(path, io);
   if (typeof project === 'number') return project;
   if (args.report !== undefined) return (await writeReportFile(project, path, args.report, io)) ? EXIT_OK : EXIT_FAILURE;

@@ -94,6 +94,14 @@ export function App() {
     }, fail('The plan was not saved'));
   };
 
+  const newFromDemo = (which: 'continuous' | 'binary', what: string): void => {
+    if (!confirmDiscard()) return;
+    call('loadDemo', { which }).then((demo) => {
+      doc.load(demo.project, null);
+      report(`A new plan from ${what} (fictional). Save it to keep it.`);
+    }, fail('The demo could not be loaded'));
+  };
+
   const actions = {
     newPlan: () => {
       if (confirmDiscard()) {
@@ -101,13 +109,8 @@ export function App() {
         report('A new, empty plan. Add populations to start.');
       }
     },
-    newFromDemo: () => {
-      if (!confirmDiscard()) return;
-      call('loadDemo', { which: 'continuous' }).then((demo) => {
-        doc.load(demo.project, null);
-        report('A new plan from the demo consortium (fictional). Save it to keep it.');
-      }, fail('The demo could not be loaded'));
-    },
+    newFromDemo: () => newFromDemo('continuous', 'the demo consortium'),
+    newFromBinaryDemo: () => newFromDemo('binary', 'the binary-outcome demo consortium'),
     open: () => {
       if (confirmDiscard()) pick('open', (path) => openPath(path));
     },

@@ -1,6 +1,7 @@
 export interface ToolbarActions {
   readonly newPlan: () => void;
   readonly newFromDemo: () => void;
+  readonly newFromBinaryDemo: () => void;
   readonly open: () => void;
   readonly save: () => void;
   readonly saveAs: () => void;
@@ -34,6 +35,9 @@ export function Toolbar({
       </button>
       <button type="button" onClick={actions.newFromDemo}>
         New from demo
+      </button>
+      <button type="button" onClick={actions.newFromBinaryDemo}>
+        New from binary demo
       </button>
       <button type="button" onClick={actions.open} title="Ctrl+O">
         Open…
