@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { OUTCOME_TYPES, projectSchema, type OutcomeType, type Project } from '@shared/model/project';
 import { fieldProblems } from '@shared/model/validation-message';
 import { parseNumberText } from '../state/field-edit';
@@ -30,6 +31,8 @@ function applyProjectEdit(
 
 /** The plan as a whole: its name, the model being validated, model updating and the study window. */
 export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
+  // Why the updating toggle was refused (e.g. a Cox–Snell R² impossible at a population's proportion).
+  const [toggleProblem, setToggleProblem] = useState<string | null>(null);
   const number = (
     path: string,
     label: string,
@@ -141,11 +144,17 @@ export function ProjectSettings({ project, onChange }: ProjectSettingsProps) {
               checked={updating.enabled}
               onChange={(event) => {
                 const edit = applyProjectEdit(project, 'updating.enabled', event.target.checked);
+                setToggleProblem(edit.ok ? null : edit.message);
                 if (edit.ok) onChange(event.target.checked ? 'turn model updating on' : 'turn model updating off', edit.project);
               }}
             />{' '}
             The model will be updated locally (add the development minimums)
           </label>
+          {toggleProblem === null ? null : (
+            <p className="field-error" role="alert">
+              Model updating was not changed: {toggleProblem}
+            </p>
+          )}
           {number('updating.predictorParameters', 'Predictor parameters (P)', {
             allowed: 'a whole number, at least 1',
             help: 'Count every parameter the updated model estimates: each dummy, spline term and interaction.',

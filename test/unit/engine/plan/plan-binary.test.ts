@@ -70,18 +70,19 @@ describe('planBinary maps a project population onto the engine', () => {
   });
 
   it('passes the O/E limits, the LP, the miscalibration and every precision target through unchanged', () => {
+    const precision = {
+      confidence: 0.9,
+      oe: { lower: 0.8, upper: 1.25 },
+      slope: { width: 0.3 },
+      cStatistic: { width: 0.08 },
+      netBenefit: { width: 0.05, standardised: false },
+    };
     const site = population({
       id: 'x',
       name: 'X',
       outcome: 'binary',
       anticipated: { outcomeProportion: 0.2, lpMean: -1.8, lpSd: 0.9, calibrationIntercept: 0.2, calibrationSlope: 0.8 },
-      precision: {
-        confidence: 0.9,
-        oe: { lower: 0.8, upper: 1.25 },
-        slope: { width: 0.3 },
-        cStatistic: { width: 0.08 },
-        netBenefit: { width: 0.05, standardised: false },
-      },
+      precision,
     });
     const engine = planBinaryPopulation({
       anticipated: {
@@ -92,13 +93,7 @@ describe('planBinary maps a project population onto the engine', () => {
         calibrationSlope: 0.8,
         thresholds: [],
       },
-      precision: {
-        confidence: 0.9,
-        oe: { lower: 0.8, upper: 1.25 },
-        slope: { width: 0.3 },
-        cStatistic: { width: 0.08 },
-        netBenefit: { width: 0.05, standardised: false },
-      },
+      precision,
     });
     expect(planBinary(site, updatingOff).criteria).toEqual(engine.criteria);
     expect(planBinary(site, updatingOff).lp?.source).toBe('given');
