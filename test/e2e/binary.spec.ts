@@ -1,8 +1,9 @@
 // A binary-outcome plan built in the UI (new plan → binary outcome → populations → values) and the
 // binary demo, each checked against the engine: the ranking, the required n, the events and the
-// criterion columns.
+// criterion columns; the binary editor passes axe-core's serious and critical rules.
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
+import AxeBuilder from '@axe-core/playwright';
 import type { Page } from '@playwright/test';
 import { expect, REPO_ROOT, test } from './harness/fixtures';
 import { parsePlanText } from '../../shared/model/plan-file';
@@ -127,4 +128,10 @@ test('the binary demo opens from the toolbar with the engine ranking and events,
   await page.getByTestId('updating-toggle').uncheck();
   await expect(head).not.toContainText('Dev. overall risk');
   await expectTableMatches(page, { ...demo, updating: { ...demo.updating, enabled: false } });
+  // The binary editor (thresholds, O/E convention, LP note) and settings pass axe-core's serious and critical rules.
+  await row(page, demo.populations[0]?.name ?? '').click();
+  await expect(page.getByTestId('threshold-list')).toBeVisible();
+  const results = await new AxeBuilder({ page }).analyze();
+  const serious = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  expect(serious.map((v) => `${v.id}: ${v.help} (${v.nodes.length}) ${v.nodes[0]?.target.join(' ') ?? ''}`)).toEqual([]);
 });
