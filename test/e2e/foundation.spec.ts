@@ -12,7 +12,7 @@ test('the built renderer loads the demo plan from disk through the bridge and sh
   await expect(page.getByTestId('plan-title')).toContainText(demo.name);
   for (const population of demo.populations) await expect(page.getByTestId('comparison-table')).toContainText(population.name);
   expect(host.calls).toEqual(expect.arrayContaining(['appInfo', 'loadDemo']));
-  await expect(page.getByRole('note')).toContainText('Statistical precision only');
+  await expect(page.locator('p.cautions')).toContainText('Statistical precision only');
 });
 
 test('the renderer cannot reach Node, and sees exactly the contract on window.api', async ({ appPage: page }) => {
