@@ -2,41 +2,15 @@
 // expected number of events at that n (planners think in events).
 import type { SampleSize } from '../continuous/sample-size';
 import { BEYOND_LIMIT_REASON } from '../continuous/sample-size-limit';
-import type { CriterionPurpose, CriterionResult, CriterionStatus, Intermediate, ReferenceKey } from '../types';
+import { criterionResult, type CriterionTextOf } from '../continuous/criterion-result';
+import type { CriterionResult, Intermediate } from '../types';
 import type { BinaryCriterionId } from './binary-criterion-ids';
 
 /** What a binary criterion says about itself, independent of the inputs. */
-export interface BinaryCriterionText {
-  readonly id: BinaryCriterionId;
-  readonly label: string;
-  readonly purpose: CriterionPurpose;
-  readonly formula: string;
-  readonly references: readonly ReferenceKey[];
-}
+export type BinaryCriterionText = CriterionTextOf<BinaryCriterionId>;
 
-// Every result is built by this one literal, so all share one object shape; `reason` is present
-// but undefined when there is none.
-function result(
-  text: BinaryCriterionText,
-  target: string,
-  status: CriterionStatus,
-  n: number | null,
-  intermediates: readonly Intermediate[],
-  reason: string | undefined,
-): CriterionResult {
-  return {
-    id: text.id,
-    label: text.label,
-    purpose: text.purpose,
-    status,
-    n,
-    reason,
-    target,
-    formula: text.formula,
-    references: text.references,
-    intermediates,
-  };
-}
+// One builder for every engine, so all results share one object shape.
+const result = criterionResult;
 
 /**
  * A sized criterion; the expected events n·phi at its n are appended to `intermediates` (which the
