@@ -1,46 +1,39 @@
-import { useState } from 'react';
-import { formatSignificant } from '@shared/format/numbers';
-import { DomainError } from '@shared/engine/errors';
 import { logScaleTolerance } from '@shared/engine/helpers/log-scale-tolerance';
-import { parseNumberText } from '../state/field-edit';
+import { MethodHelper, type HelperMethod } from './MethodHelper';
+
+type Method = 'relative' | 'absolute';
+
+const METHODS: readonly HelperMethod<Method>[] = [
+  {
+    id: 'relative',
+    label: '± a percentage of the value',
+    inputs: ['tolerance ± %'],
+    source: 'For outcomes modelled on the log scale: half-width ln(1 + r), the conservative side.',
+  },
+  {
+    id: 'absolute',
+    label: '± units around a typical value',
+    inputs: ['tolerance ± units', 'typical value'],
+    source: 'For outcomes modelled on the log scale: r = tolerance / typical value, then half-width ln(1 + r).',
+  },
+];
 
 /**
- * For a log-modelled outcome: turns "within ±r% on the original scale" into the CI width for
- * CITL on the log scale (conservative side, ln(1 + r)), and offers to use it.
+ * For a log-modelled outcome: turns a tolerance on the original scale into the CI width for CITL on
+ * the log scale, and offers to use it.
  */
 export function WidthHelper({ confidence, onUse }: { readonly confidence: number; readonly onUse: (width: number) => void }) {
-  const [percent, setPercent] = useState('');
-  const parsed = parseNumberText(percent);
-  let result: { width: number } | { error: string } | null = null;
-  if (parsed.ok && parsed.value !== undefined) {
-    try {
-      result = { width: logScaleTolerance({ relative: parsed.value / 100 }, confidence).ciWidth };
-    } catch (error) {
-      result = { error: error instanceof DomainError ? error.message : String(error) };
-    }
-  } else if (!parsed.ok) result = { error: parsed.message };
-
   return (
-    <fieldset className="helper">
-      <legend>CITL width from a tolerance on the original scale</legend>
-      <label>
-        Tolerance ±{' '}
-        <input type="text" inputMode="decimal" size={5} value={percent} onChange={(event) => setPercent(event.target.value)} /> %
-      </label>
-      <p className="hint">For outcomes modelled on the log scale: half-width ln(1 + r), the conservative side.</p>
-      {result && 'width' in result ? (
-        <p>
-          Log-scale CI width {formatSignificant(result.width, 5)}{' '}
-          <button type="button" onClick={() => onUse(result.width)}>
-            Use this width
-          </button>
-        </p>
-      ) : null}
-      {result && 'error' in result ? (
-        <p className="field-error" role="alert">
-          {result.error}
-        </p>
-      ) : null}
-    </fieldset>
+    <MethodHelper
+      legend="CITL width from a tolerance on the original scale"
+      chooser="Tolerance given as"
+      methods={METHODS}
+      compute={(method, [a = Number.NaN, b = Number.NaN]) =>
+        logScaleTolerance(method === 'relative' ? { relative: a / 100 } : { absolute: a, centre: b }, confidence).ciWidth
+      }
+      resultLabel="Log-scale CI width"
+      useLabel="Use this width"
+      onUse={onUse}
+    />
   );
 }
