@@ -1,23 +1,13 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import os from 'node:os';
+import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CHANNELS } from '@shared/model/channels';
 import { contract } from '@shared/model/contract';
 import { dispatch } from '../../../src-main/handlers/dispatch';
-import type { HandlerContext } from '../../../src-main/handlers/context';
+import { testHandlerContext } from '../helpers/handler-context';
 
-const base = mkdtempSync(path.join(os.tmpdir(), 'plumbline-dispatch-'));
-const ctx: HandlerContext = {
-  appName: 'Plumbline',
-  appVersion: 'test',
-  runtime: 'browser',
-  userDataDir: path.join(base, 'user'),
-  documentsDir: path.join(base, 'docs'),
-  demoDir: path.join(base, 'demo'),
-  instanceId: 'test',
-};
+const { base, ctx } = testHandlerContext('dispatch');
 
 describe('dispatch refuses payloads that break their schema', () => {
   it.each([

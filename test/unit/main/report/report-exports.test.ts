@@ -1,25 +1,15 @@
 import { mkdtempSync, readFileSync } from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { parse } from 'csv-parse/sync';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
 import type { Envelope } from '@shared/model/channels';
 import { dispatch } from '../../../../src-main/handlers/dispatch';
-import type { HandlerContext } from '../../../../src-main/handlers/context';
+import { testHandlerContext } from '../../helpers/handler-context';
 import { chromiumPrinter } from '../../../../src-main/report/chromium-pdf';
 import { demoProject } from '../../report/demo-plan';
 
-const base = mkdtempSync(path.join(os.tmpdir(), 'plumbline-exports-'));
-const ctx: HandlerContext = {
-  appName: 'Plumbline',
-  appVersion: 'test',
-  runtime: 'browser',
-  userDataDir: path.join(base, 'user'),
-  documentsDir: path.join(base, 'docs'),
-  demoDir: path.join(base, 'demo'),
-  instanceId: 'test',
-};
+const { base, ctx } = testHandlerContext('exports');
 const project = demoProject();
 
 /** The error of a refused call (fails the test when the call succeeded). */
